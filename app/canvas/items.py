@@ -1,0 +1,263 @@
+"""Graphics items of the plan: the floor with its openings, lateral elements, the underlay.
+
+Geometry is in metres (scene units). Symbols are drawn in device pixels so they keep their size
+at every zoom: ``paint`` maps the element's ends to the device and draws there. Items ask the
+scene for ``pixel`` (metres per device pixel) to size their bounding box and pick area.
+"""
+
+from __future__ import annotations
+
+import math
+
+from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
+from PySide6.QtGui import QBrush, QColor, QFont, QPainter, QPainterPath, QPainterPathStroker, QPolygonF
+from PySide6.QtWidgets import QGraphicsItem, QGraphicsPathItem, QStyleOptionGraphicsItem, QWidget
+
+from app.canvas import style
+from core.model import BracedFrame, BracePattern, Element, Level, MomentFrame, Ring, ShearWall
+
+PICK_PIXELS = 6.0
+"""Half-width of an element's pick area, device pixels."""
+SYMBOL_PIXELS = 5.0
+"""Half-width of the braced-frame band, zigzag amplitude and joint size, device pixels."""
+LABEL_FONT = QFont("DejaVu Sans", 8)
+
+
+def ring_polygon(ring: Ring) -> QPolygonF:
+    return QPolygonF([QPointF(x, y) for x, y in ring])
+
+
+def floor_path(level: Level) -> QPainterPath:
+    """The floor as a path: outline with the openings as holes (odd-even fill)."""
+    path = QPainterPath()
+    path.setFillRule(Qt.FillRule.OddEvenFill)
+    path.addPolygon(ring_polygon(level.outline))
+    path.closeSubpath()
+    for opening in level.openings:
+        path.addPolygon(ring_polygon(opening))
+        path.closeSubpath()
+    return path
+
+
+def _pixel(item: QGraphicsItem) -> float:
+    scene = item.scene()
+    return getattr(scene, "pixel", 0.05) if scene is not None else 0.05
+
+
+class FloorItem(QGraphicsPathItem):
+    """The current level's floor plate, or a faint outline of a level below."""
+
+    def __init__(self, level: Level, faint: bool = False) -> None:
+        super().__init__()
+        self.level = level
+        self.faint = faint
+        if faint:
+            self.setPen(style.pen(style.BELOW, 1.0, Qt.PenStyle.DashLine))
+            self.setBrush(Qt.BrushStyle.NoBrush)
+        else:
+            self.setPen(style.pen(style.FLOOR_EDGE, 1.6))
+            self.setBrush(QBrush(style.FLOOR_FILL))
+        self.set_level(level)
+
+    def set_level(self, level: Level) -> None:
+        self.level = level
+        self.setPath(floor_path(level))
+
+    def paint(self, painter: QPainter, option: QStyleOptionGraphicsItem, widget: QWidget | None = None) -> None:
+        super().paint(painter, option, widget)
+        if self.faint:
+            return
+        painter.setBrush(Qt.BrushStyle.NoBrush)
+        painter.setPen(style.pen(style.FLOOR_EDGE, 1.0, Qt.PenStyle.DashLine))
+        for opening in self.level.openings:
+            polygon = ring_polygon(opening)
+            painter.setBrush(QBrush(style.OPENING_FILL, Qt.BrushStyle.BDiagPattern))
+            painter.drawPolygon(polygon)
+
+
+class UnderlayItem(QGraphicsPathItem):
+    """A locked, faint line drawing under the plan (for instance from an architect's DXF)."""
+
+    def __init__(self, segments: list[tuple[tuple[float, float], tuple[float, float]]]) -> None:
+        super().__init__()
+        path = QPainterPath()
+        for (x1, y1), (x2, y2) in segments:
+            path.moveTo(x1, y1)
+            path.lineTo(x2, y2)
+        self.setPath(path)
+        self.setPen(style.pen(style.UNDERLAY, 1.0))
+        self.setFlag(QGraphicsItem.GraphicsItemFlag.ItemIsSelectable, False)
+        self.setAcceptedMouseButtons(Qt.MouseButton.NoButton)
+
+
+class ElementItem(QGraphicsItem):
+    """One lateral element on the plan, with a symbol of its kind drawn in device pixels."""
+
+    def __init__(self, element: Element, faint: bool = False) -> None:
+        super().__init__()
+        self.element = element
+        self.faint = faint
+        self.selected = False
+        self.culprit = False
+        self.setAcceptedMouseButtons(Qt.MouseButton.NoButton)  # tools pick by position
+
+    def set_element(self, element: Element) -> None:
+        if element != self.element:
+            self.prepareGeometryChange()
+            self.element = element
+            self.update()
+
+    def set_marks(self, selected: bool, culprit: bool) -> None:
+        if (selected, culprit) != (self.selected, self.culprit):
+            self.selected, self.culprit = selected, culprit
+            self.update()
+
+    def pixel_changed(self) -> None:
+        self.prepareGeometryChange()
+
+    def _margin(self) -> float:
+        thickness = self.element.properties.thickness if isinstance(self.element.properties, ShearWall) else 0.0
+        return max(24.0 * _pixel(self), thickness)
+
+    def boundingRect(self) -> QRectF:
+        (x1, y1), (x2, y2) = self.element.start, self.element.end
+        m = self._margin()
+        return QRectF(QPointF(min(x1, x2), min(y1, y2)), QPointF(max(x1, x2), max(y1, y2))).adjusted(-m, -m, m, m)
+
+    def shape(self) -> QPainterPath:
+        path = QPainterPath(QPointF(*self.element.start))
+        path.lineTo(QPointF(*self.element.end))
+        stroker = QPainterPathStroker()
+        stroker.setWidth(2 * PICK_PIXELS * _pixel(self))
+        return stroker.createStroke(path)
+
+    def paint(self, painter: QPainter, option: QStyleOptionGraphicsItem, widget: QWidget | None = None) -> None:
+        transform = painter.worldTransform()
+        a = transform.map(QPointF(*self.element.start))
+        b = transform.map(QPointF(*self.element.end))
+        painter.save()
+        painter.resetTransform()
+        painter.setRenderHint(QPainter.RenderHint.Antialiasing)
+        draw_element_symbol(painter, self.element, a, b, transform.m11(), self.faint, self.selected, self.culprit)
+        painter.restore()
+
+
+def draw_element_symbol(
+    painter: QPainter,
+    element: Element,
+    a: QPointF,
+    b: QPointF,
+    scale: float,
+    faint: bool = False,
+    selected: bool = False,
+    culprit: bool = False,
+    label: bool = True,
+) -> None:
+    """Draw ``element`` between device points ``a`` and ``b``; ``scale`` is device pixels per metre."""
+    line = QLineF(a, b)
+    length = line.length()
+    colour = style.KIND_COLOURS[element.kind]
+    if faint:
+        painter.setPen(style.pen(style.BELOW, 1.4, Qt.PenStyle.DashLine))
+        painter.drawLine(line)
+        return
+    for flag, halo in ((culprit, style.CULPRIT), (selected, style.SELECTION)):
+        if flag:
+            halo_pen = style.pen(halo, 14.0)
+            halo_pen.setCapStyle(Qt.PenCapStyle.RoundCap)
+            painter.setPen(halo_pen)
+            painter.drawLine(line)
+    if length < 1.0:
+        painter.setPen(style.pen(colour, 2.0))
+        painter.drawEllipse(a, 3.0, 3.0)
+        return
+    u = QPointF((b.x() - a.x()) / length, (b.y() - a.y()) / length)
+    n = QPointF(-u.y(), u.x())
+    w = SYMBOL_PIXELS
+    properties = element.properties
+    if isinstance(properties, BracedFrame):
+        _draw_braced(painter, a, u, n, length, w, properties, colour)
+    elif isinstance(properties, ShearWall):
+        half = max(abs(scale) * properties.thickness / 2, 3.0)
+        fill = QColor(colour)
+        fill.setAlpha(200)
+        body = QPolygonF([a + n * half, b + n * half, b - n * half, a - n * half])
+        painter.setPen(style.pen(colour.darker(130), 1.0))
+        painter.setBrush(fill)
+        painter.drawPolygon(body)
+        w = half
+    elif isinstance(properties, MomentFrame):
+        painter.setPen(style.pen(colour, 2.4))
+        painter.drawLine(line)
+        painter.setBrush(colour)
+        painter.setPen(Qt.PenStyle.NoPen)
+        for i in range(properties.bays + 1):
+            c = a + u * (length * i / properties.bays)
+            painter.drawRect(QRectF(c.x() - w * 0.8, c.y() - w * 0.8, 1.6 * w, 1.6 * w))
+    else:
+        _draw_spring(painter, a, b, u, n, length, w, colour)
+    if label:
+        _draw_label(painter, element.id, (a + b) / 2, n, w + 9.0, colour)
+
+
+def _draw_braced(painter, a, u, n, length, w, properties: BracedFrame, colour: QColor) -> None:
+    painter.setPen(style.pen(colour, 1.6))
+    painter.setBrush(Qt.BrushStyle.NoBrush)
+    top, bottom = n * w, n * -w
+    b = a + u * length
+    painter.drawLine(QLineF(a + top, b + top))
+    painter.drawLine(QLineF(a + bottom, b + bottom))
+    bay = length / properties.bays
+    for i in range(properties.bays + 1):
+        c = a + u * (bay * i)
+        painter.drawLine(QLineF(c + top, c + bottom))
+    painter.setPen(style.pen(colour, 1.1))
+    for i in range(properties.bays):
+        left, right = a + u * (bay * i), a + u * (bay * (i + 1))
+        if properties.pattern is BracePattern.CROSS:
+            painter.drawLine(QLineF(left + bottom, right + top))
+            painter.drawLine(QLineF(left + top, right + bottom))
+        elif properties.pattern is BracePattern.SINGLE:
+            if i % 2 == 0:
+                painter.drawLine(QLineF(left + bottom, right + top))
+            else:
+                painter.drawLine(QLineF(left + top, right + bottom))
+        else:
+            apex = (left + right) / 2 + top
+            painter.drawLine(QLineF(left + bottom, apex))
+            painter.drawLine(QLineF(right + bottom, apex))
+
+
+def _draw_spring(painter, a, b, u, n, length, w, colour: QColor) -> None:
+    painter.setPen(style.pen(colour, 1.8))
+    painter.setBrush(Qt.BrushStyle.NoBrush)
+    lead = length * 0.3
+    teeth = 6
+    points = [a, a + u * lead]
+    step = (length - 2 * lead) / teeth
+    for i in range(teeth):
+        side = 1 if i % 2 == 0 else -1
+        points.append(a + u * (lead + step * (i + 0.5)) + n * (side * w * 1.2))
+    points += [a + u * (length - lead), b]
+    painter.drawPolyline(QPolygonF(points))
+
+
+def _draw_label(painter: QPainter, text: str, centre: QPointF, n: QPointF, offset: float, colour: QColor) -> None:
+    painter.setFont(LABEL_FONT)
+    metrics = painter.fontMetrics()
+    width, height = metrics.horizontalAdvance(text) + 6, metrics.height()
+    # Put the label on the side of the line that is up or left on screen.
+    if n.y() > 0 or (abs(n.y()) < 1e-9 and n.x() > 0):
+        n = -n
+    c = centre + n * (offset + max(width, height) * 0.35 * abs(n.x()))
+    box = QRectF(c.x() - width / 2, c.y() - height / 2, width, height)
+    painter.setPen(Qt.PenStyle.NoPen)
+    painter.setBrush(QColor(255, 255, 255, 215))
+    painter.drawRoundedRect(box, 3, 3)
+    painter.setPen(colour.darker(140))
+    painter.drawText(box, Qt.AlignmentFlag.AlignCenter, text)
+
+
+def angle_of(element: Element) -> float:
+    """Direction of the element in degrees, counter-clockwise from +x."""
+    return math.degrees(math.atan2(element.end[1] - element.start[1], element.end[0] - element.start[0]))

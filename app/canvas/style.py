@@ -1,0 +1,59 @@
+"""Poise's own drawing palette: colours and cosmetic pens shared by the canvas and the panels."""
+
+from __future__ import annotations
+
+from PySide6.QtCore import Qt
+from PySide6.QtGui import QColor, QPen
+
+from core.model import ElementKind
+
+PAPER = QColor("#f6f5f0")
+GRID_MINOR = QColor("#e7e4da")
+GRID_MAJOR = QColor("#d2cdbf")
+AXIS = QColor("#bdb6a4")
+FLOOR_FILL = QColor("#ffffff")
+FLOOR_EDGE = QColor("#34332f")
+OPENING_FILL = QColor("#e9e6de")
+BELOW = QColor("#a9a394")
+"""Outlines and elements of the levels below, drawn for reference."""
+UNDERLAY = QColor("#8aa4b8")
+TEMPORARY = QColor("#d0560b")
+"""Rubber lines of a shape or element being drawn."""
+SNAP = QColor("#d0560b")
+SELECTION = QColor(255, 176, 0, 110)
+CULPRIT = QColor(198, 21, 47, 120)
+HANDLE = QColor("#1d1d1b")
+
+KIND_COLOURS = {
+    ElementKind.BRACED_FRAME: QColor("#1f5fa8"),
+    ElementKind.SHEAR_WALL: QColor("#8a5a2b"),
+    ElementKind.MOMENT_FRAME: QColor("#2e7d4f"),
+    ElementKind.SPRING: QColor("#7a3fa0"),
+}
+
+KIND_LABELS = {
+    ElementKind.BRACED_FRAME: "Braced frame",
+    ElementKind.SHEAR_WALL: "Shear wall",
+    ElementKind.MOMENT_FRAME: "Moment frame",
+    ElementKind.SPRING: "Spring line",
+}
+
+MASS_CENTRE = QColor("#c2361b")
+RIGIDITY_CENTRE = QColor("#0b7d86")
+ECCENTRICITY = QColor("#2b2a27")
+ACCIDENTAL_BAND = QColor(194, 54, 27, 40)
+
+PASS = QColor("#2e8b57")
+WARN = QColor("#d99a00")
+FAIL = QColor("#c62828")
+UNKNOWN = QColor("#9e9a90")
+DIAGNOSTIC = QColor("#b3122e")
+
+
+def pen(colour: QColor, width: float = 1.0, style: Qt.PenStyle = Qt.PenStyle.SolidLine) -> QPen:
+    """A cosmetic pen: ``width`` in device pixels at every zoom."""
+    p = QPen(colour, width, style)
+    p.setCosmetic(True)
+    p.setCapStyle(Qt.PenCapStyle.FlatCap)
+    p.setJoinStyle(Qt.PenJoinStyle.MiterJoin)
+    return p

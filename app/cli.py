@@ -1,0 +1,77 @@
+"""The ``poise`` command: open the editor, or analyse a project file in the terminal.
+
+``poise [FILE]`` opens the editor (on a bundled sample without FILE); ``poise analyse FILE`` prints a
+readable summary, ``--json`` the documented JSON of :mod:`core.summary`. Bad input ends with exit
+status 2 and a one-line message on standard error, never a traceback.
+"""
+
+from __future__ import annotations
+
+import argparse
+import json
+import sys
+from collections.abc import Sequence
+from pathlib import Path
+
+from core.errors import AnalysisError, ModelError
+
+BAD_INPUT = 2
+COMMANDS = ("analyse",)
+
+
+def _analyse_parser() -> argparse.ArgumentParser:
+    parser = argparse.ArgumentParser(
+        prog="poise analyse", description="Analyse a .poise project and print the results."
+    )
+    parser.add_argument("file", type=Path, help="the .poise project file")
+    parser.add_argument("--json", action="store_true", help="print the results as JSON (layout in core/summary.py)")
+    return parser
+
+
+def _editor_parser() -> argparse.ArgumentParser:
+    parser = argparse.ArgumentParser(
+        prog="poise",
+        description="Concept-stage lateral layout: open the editor, or use 'poise analyse FILE'.",
+        epilog="commands: analyse FILE [--json]",
+    )
+    parser.add_argument("file", nargs="?", type=Path, help="a .poise project to open (default: a bundled sample)")
+    return parser
+
+
+def run_analyse(arguments: argparse.Namespace) -> int:
+    """Print the summary or JSON of one project file."""
+    from core.analysis import analyse
+    from core.fileio import load_project
+    from core.summary import format_summary, results_to_dict
+
+    project = load_project(arguments.file)
+    results = analyse(project)
+    if arguments.json:
+        print(json.dumps(results_to_dict(project, results), indent=2, ensure_ascii=False))
+    else:
+        print(format_summary(project, results))
+    return 0
+
+
+def main(argv: Sequence[str] | None = None) -> int:
+    """Entry point of the ``poise`` script."""
+    args = list(sys.argv[1:] if argv is None else argv)
+    try:
+        if args and args[0] == "analyse":
+            return run_analyse(_analyse_parser().parse_args(args[1:]))
+        arguments = _editor_parser().parse_args(args)
+        if arguments.file is not None and not arguments.file.is_file():
+            raise ModelError("", f"no such project file: {arguments.file}")
+        from app.main_window import run
+
+        return run(arguments.file)
+    except (ModelError, AnalysisError) as error:
+        print(f"poise: {error}", file=sys.stderr)
+        return BAD_INPUT
+    except OSError as error:
+        print(f"poise: {error.strerror or error}: {error.filename or ''}".rstrip(": "), file=sys.stderr)
+        return BAD_INPUT
+
+
+if __name__ == "__main__":
+    sys.exit(main())

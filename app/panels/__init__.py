@@ -1,0 +1,1 @@
+"""Docked panels around the plan: levels strip, properties, results, status bar."""

@@ -1,0 +1,329 @@
+"""What the one-page sheet says, gathered from the project and its results (Qt-free).
+
+The painter modules only lay out and draw; every figure, word and choice on the sheet is made
+here, so tests can check the content without a display: which level is drawn and why, which
+modes are listed, the checks table, the assumptions and the caution.
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+import math
+from dataclasses import dataclass
+
+from core.lateral_results import DIRECTIONS, STATUS_ORDER, LateralResults, Status, Verdict
+from core.model import (
+    BracedFrame,
+    ElementKind,
+    LoadMethod,
+    MomentFrame,
+    Project,
+    RuleSet,
+    Settings,
+    ShearWall,
+)
+from core.results import Mode, Results
+from core.summary import CAUTION
+
+MASS_SHARE_TARGET = 0.90
+"""Modes are listed until their effective masses reach this share in x and in y
+(EN 1998-1 §4.3.3.3.1(3): the modes taken into account sum to at least 90 % of the mass)."""
+
+MIN_MODES_LISTED = 3
+
+
+def period_text(period: float) -> str:
+    """A period as printed on the sheet, in seconds (three decimals, as in the CLI summary)."""
+    return f"{period:.3f}"
+
+
+@dataclass(frozen=True)
+class TitleFields:
+    """The title block: who, what and when."""
+
+    project: str
+    job_number: str
+    engineer: str
+    date: str
+    revision: str
+    file_name: str
+
+
+@dataclass(frozen=True)
+class ChecksColumn:
+    """One judged figure of the per-storey checks: its name, direction, limit and clauses."""
+
+    name: str
+    direction: str | None
+    limit: float | None
+    """The limit if it is the same for every storey, else None (cells then show their own)."""
+    clauses: tuple[str, ...]
+    """Footnote numbers (1-based, into SheetContent.clauses) of the clauses this column uses."""
+
+
+@dataclass(frozen=True)
+class ChecksCell:
+    value: float
+    limit: float
+    status: Status
+
+
+@dataclass(frozen=True)
+class ChecksRow:
+    storey: int
+    name: str
+    cells: tuple[ChecksCell | None, ...]
+
+
+@dataclass(frozen=True)
+class BuildingCheck:
+    """A judged figure that belongs to the whole building (e.g. the mode order)."""
+
+    text: str
+    status: Status
+    clause: int
+    """Footnote number of its clause."""
+
+
+@dataclass(frozen=True)
+class SheetContent:
+    """Everything the sheet shows, in the order it is drawn."""
+
+    title: TitleFields
+    level: int
+    """The level drawn in plan (1-based)."""
+    level_reason: str
+    modes: tuple[Mode, ...]
+    """The modes listed in the table."""
+    modes_total: int
+    sketched: tuple[Mode, ...]
+    """Modes 1–3 (fewer if the building has fewer), drawn as small sketches."""
+    columns: tuple[ChecksColumn, ...]
+    rows: tuple[ChecksRow, ...]
+    """Storeys top first, as a building reads."""
+    building_checks: tuple[BuildingCheck, ...]
+    clauses: tuple[str, ...]
+    """Footnotes of the checks: the clause or source of each limit."""
+    rule_set: str
+    assumptions: tuple[str, ...]
+    caution: str
+
+
+def worst_torsion_level(results: Results) -> tuple[int, str]:
+    """The level with the largest torsion ratio in either direction, and a phrase saying so.
+
+    An infinite ratio (the ends' average does not move) counts as the worst. Without lateral
+    results the top level is drawn.
+    """
+    lateral = results.lateral
+    count = len(results.floors)
+    if lateral is None or not lateral.storeys:
+        return count, "top level"
+    best = max(lateral.storeys, key=lambda s: (max(s.torsion_ratio), -s.storey))
+    ratio = max(best.torsion_ratio)
+    direction = DIRECTIONS[int(best.torsion_ratio[1] > best.torsion_ratio[0])]
+    shown = "∞" if math.isinf(ratio) else f"{ratio:.2f}"
+    return best.storey, f"largest torsion ratio, {shown} in {direction}"
+
+
+def listed_modes(modes: tuple[Mode, ...], capacity: int | None = None) -> tuple[Mode, ...]:
+    """The modes for the table: up to 90 % effective mass in x and y, at least three, at most
+    ``capacity`` (what fits on the page)."""
+    needed = len(modes)
+    for mode in modes:
+        if mode.cumulative[0] >= MASS_SHARE_TARGET and mode.cumulative[1] >= MASS_SHARE_TARGET:
+            needed = mode.number
+            break
+    count = min(len(modes), max(needed, MIN_MODES_LISTED))
+    if capacity is not None:
+        count = min(count, max(capacity, 1))
+    return modes[:count]
+
+
+def _storey_verdicts(lateral: LateralResults) -> list[Verdict]:
+    return [v for v in lateral.verdicts if v.storey is not None]
+
+
+def checks_table(
+    lateral: LateralResults, level_names: dict[int, str]
+) -> tuple[tuple[ChecksColumn, ...], tuple[ChecksRow, ...], tuple[BuildingCheck, ...], tuple[str, ...]]:
+    """Columns (one per judged figure and direction), rows (storeys, top first), the whole-building
+    checks and the clause footnotes, from the verdicts of the active rule set."""
+    clauses: list[str] = []
+
+    def footnote(clause: str) -> int:
+        if clause not in clauses:
+            clauses.append(clause)
+        return clauses.index(clause) + 1
+
+    keys: list[tuple[str, str | None]] = []
+    by_key: dict[tuple[str, str | None], list[Verdict]] = {}
+    for verdict in _storey_verdicts(lateral):
+        key = (verdict.name, verdict.direction)
+        if key not in by_key:
+            keys.append(key)
+            by_key[key] = []
+        by_key[key].append(verdict)
+    columns = []
+    for key in keys:
+        verdicts = by_key[key]
+        limits = {v.limit for v in verdicts}
+        numbers = tuple(dict.fromkeys(footnote(v.clause) for v in verdicts))
+        columns.append(ChecksColumn(key[0], key[1], limits.pop() if len(limits) == 1 else None,
+                                    tuple(str(n) for n in numbers)))
+    storeys = sorted({v.storey for v in _storey_verdicts(lateral)} | set(level_names), reverse=True)
+    rows = []
+    for storey in storeys:
+        cells = []
+        for key in keys:
+            found = [v for v in by_key[key] if v.storey == storey]
+            if found:
+                worst = max(found, key=lambda v: STATUS_ORDER[v.status])
+                cells.append(ChecksCell(worst.value, worst.limit, worst.status))
+            else:
+                cells.append(None)
+        rows.append(ChecksRow(storey, level_names.get(storey, f"storey {storey}"), tuple(cells)))
+    building = tuple(
+        BuildingCheck(_building_text(v), v.status, footnote(v.clause))
+        for v in lateral.verdicts
+        if v.storey is None
+    )
+    return tuple(columns), tuple(rows), building, tuple(clauses)
+
+
+def _building_text(verdict: Verdict) -> str:
+    direction = f" ({verdict.direction})" if verdict.direction else ""
+    return f"{verdict.name}{direction}: {number_text(verdict.value)} against {number_text(verdict.limit)}"
+
+
+def number_text(value: float) -> str:
+    """A judged figure in three significant digits; ∞ for an infinite one."""
+    if math.isinf(value):
+        return "∞" if value > 0 else "−∞"
+    if math.isnan(value):
+        return "–"
+    if value != 0 and (abs(value) < 0.01 or abs(value) >= 1000):
+        return f"{value:.2e}"
+    return f"{value:.3g}" if abs(value) >= 1 else f"{value:.3f}"
+
+
+def _spectrum_text(settings: Settings) -> str:
+    method = settings.load_method
+    if method is LoadMethod.EN1998:
+        s = settings.eurocode8
+        return (
+            f"EN 1998-1 §3.2.2.5 design spectrum, type {s.spectrum_type}, ground {s.ground_type}: "
+            f"a_g = {s.ag:g} g, q = {s.behaviour_factor:g}, β = {s.lower_bound:g}, ξ = {s.damping_percent:g} %"
+        )
+    if method is LoadMethod.ASCE7:
+        s = settings.asce7
+        return (
+            f"ASCE 7 §11.4 design spectrum: S_DS = {s.sds:g} g, S_D1 = {s.sd1:g} g, S_1 = {s.s1:g} g, "
+            f"T_L = {s.long_period:g} s, R = {s.response_modification:g}, I_e = {s.importance:g}, "
+            f"C_d = {s.deflection_amplification:g}"
+        )
+    return f"base shear coefficient {settings.base_shear_coefficient:g} of the seismic weight"
+
+
+def _stiffness_text(project: Project) -> str:
+    parts = []
+    walls = sorted({e.properties.stiffness_factor for e in project.elements if isinstance(e.properties, ShearWall)})
+    if walls:
+        parts.append("walls " + ", ".join(f"{f:g}" for f in walls) + " of gross")
+    frames = sorted(
+        {e.properties.stiffness_factor for e in project.elements if isinstance(e.properties, MomentFrame)}
+    )
+    if frames:
+        parts.append("moment frames " + ", ".join(f"{f:g}" for f in frames) + " of gross")
+    if any(isinstance(e.properties, BracedFrame) for e in project.elements):
+        tension_only = any(isinstance(e.properties, BracedFrame) and e.properties.tension_only for e in project.elements)
+        parts.append("braced frames gross, " + ("some tension-only" if tension_only else "braces in tension and compression"))
+    if any(e.kind is ElementKind.SPRING for e in project.elements):
+        parts.append("springs as given")
+    return "Stiffness factors: " + ("; ".join(parts) if parts else "no elements") + "."
+
+
+def _loads_text(lateral: LateralResults) -> str:
+    parts = [
+        f"{load.direction}: T = {period_text(load.period)} s, V_b = {load.base_shear:,.0f} kN "
+        f"({load.coefficient:.3f} W)"
+        for load in lateral.loads
+    ]
+    return "Static loads " + "; ".join(parts) + "."
+
+
+def assumptions(project: Project, results: Results) -> tuple[str, ...]:
+    """The key assumptions behind the figures, one sentence each."""
+    settings = project.settings
+    lines = [
+        "Floors are rigid in their plane: three degrees of freedom per floor at its mass centre.",
+        "Elements resist only in their own plane; out-of-plane stiffness is neglected; bases fixed.",
+        _stiffness_text(project),
+        "Mass from the seismic weight per floor area plus point masses; "
+        f"total {results.total_mass:,.0f} t over {len(results.floors)} floor(s).",
+        "Spectrum: " + _spectrum_text(settings) + ".",
+        f"Accidental eccentricity ±{settings.accidental_eccentricity:.0%} of the plan dimension "
+        "across the load, same sense on all floors (EN 1998-1 §4.3.2; ASCE 7 §12.8.4.2).",
+    ]
+    lateral = results.lateral
+    if lateral is not None:
+        lines.append(_loads_text(lateral))
+        lines.append(
+            f"Drift: elastic drift × {lateral.drift_amplification:g} × ν {lateral.drift_reduction:g} "
+            f"against {lateral.drift_limit:g} h. Rule set: {_rule_set_name(lateral.rule_set)}."
+        )
+    return tuple(lines)
+
+
+def _rule_set_name(rule_set: str) -> str:
+    return {RuleSet.EN1998.value: "EN 1998-1", RuleSet.ASCE7.value: "ASCE 7"}.get(rule_set, rule_set)
+
+
+def sheet_content(
+    project: Project,
+    results: Results,
+    level: int | None = None,
+    file_name: str = "",
+    revision: str = "",
+    date: str | None = None,
+) -> SheetContent:
+    """Gather the sheet's content. ``level`` is 1-based; None picks the worst torsion ratio.
+
+    Raises ValueError for a level the project does not have.
+    """
+    count = len(results.floors)
+    if level is None:
+        level, reason = worst_torsion_level(results)
+    else:
+        if not 1 <= level <= count:
+            raise ValueError(f"level {level} does not exist: the project has levels 1 to {count}")
+        reason = "chosen level"
+    lateral = results.lateral
+    names = {f.level: f.name for f in results.floors}
+    if lateral is not None:
+        columns, rows, building, clauses = checks_table(lateral, names)
+        rule_set = _rule_set_name(lateral.rule_set)
+    else:
+        columns, rows, building, clauses, rule_set = (), (), (), (), ""
+    return SheetContent(
+        title=TitleFields(
+            project=project.name,
+            job_number=project.job_number,
+            engineer=project.engineer,
+            date=date if date is not None else _dt.date.today().isoformat(),
+            revision=revision,
+            file_name=file_name,
+        ),
+        level=level,
+        level_reason=reason,
+        modes=listed_modes(results.modes),
+        modes_total=len(results.modes),
+        sketched=results.modes[:3],
+        columns=columns,
+        rows=rows,
+        building_checks=building,
+        clauses=clauses,
+        rule_set=rule_set,
+        assumptions=assumptions(project, results),
+        caution=CAUTION,
+    )

@@ -1,0 +1,1 @@
+"""Canvas tools: interaction objects that turn mouse and key input into previews and edits."""

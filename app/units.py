@@ -1,0 +1,64 @@
+"""Display units: the one place where internal kN, m, t, s values become what the screen shows.
+
+The model keeps SI base units (kPa for moduli, m² for areas); engineers read sections in mm² and
+10⁶ mm⁴, moduli in GPa, wall thickness in mm. A :class:`Quantity` converts both ways.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+
+@dataclass(frozen=True)
+class Quantity:
+    """How a model value is shown: ``shown = internal × factor``, with a unit label and decimals."""
+
+    unit: str
+    factor: float = 1.0
+    decimals: int = 3
+
+    def show(self, value: float) -> str:
+        """The value in display units, without trailing zeros beyond what matters."""
+        shown = value * self.factor
+        text = f"{shown:.{self.decimals}f}"
+        if "." in text:
+            text = text.rstrip("0").rstrip(".")
+        return "0" if text in ("-0", "") else text
+
+    def parse(self, text: str) -> float:
+        """The internal value of typed ``text``; ValueError names what could not be read."""
+        cleaned = text.strip().replace(",", ".") if text.count(",") == 1 and "." not in text else text.strip()
+        if cleaned.endswith(self.unit) and self.unit:
+            cleaned = cleaned[: -len(self.unit)].strip()
+        try:
+            value = float(cleaned)
+        except ValueError:
+            raise ValueError(f"{text!r} is not a number") from None
+        if not math.isfinite(value):
+            raise ValueError(f"{text!r} is not a finite number")
+        return value / self.factor
+
+
+LENGTH = Quantity("m", 1.0, 3)
+THICKNESS = Quantity("mm", 1e3, 1)
+AREA = Quantity("mm²", 1e6, 0)
+INERTIA = Quantity("10⁶ mm⁴", 1e6, 2)
+MODULUS = Quantity("GPa", 1e-6, 2)
+STIFFNESS = Quantity("kN/m", 1.0, 0)
+AREA_LOAD = Quantity("kPa", 1.0, 2)
+MASS = Quantity("t", 1.0, 2)
+RATIO = Quantity("", 1.0, 3)
+PERCENT = Quantity("%", 100.0, 2)
+ACCELERATION_G = Quantity("g", 1.0, 3)
+ANGLE = Quantity("°", 180.0 / math.pi, 2)
+
+
+def metres(value: float, decimals: int = 2) -> str:
+    """A length for readouts: ``12.35 m``."""
+    return f"{value:.{decimals}f} m"
+
+
+def degrees_of(dx: float, dy: float) -> float:
+    """Angle of the vector (dx, dy) in degrees, counter-clockwise from +x, in (-180, 180]."""
+    return math.degrees(math.atan2(dy, dx))

@@ -1,0 +1,20 @@
+"""The one entry point the GUI and the command line call: ``analyse(project) -> Results``."""
+
+from __future__ import annotations
+
+from core.assembly import assemble_mass, assemble_stiffness, floor_masses
+from core.errors import AnalysisError
+from core.modal import modal_analysis
+from core.model import Project
+from core.results import Results, frozen_array
+
+
+def analyse(project: Project) -> Results:
+    """Masses, stiffness and modes of ``project``; raises AnalysisError if it cannot stand."""
+    if not project.levels:
+        raise AnalysisError("the project has no levels: draw a floor outline first")
+    floors = floor_masses(project)
+    K = assemble_stiffness(project, floors)
+    M = assemble_mass(floors)
+    modes = modal_analysis(K, M, floors)
+    return Results(floors=floors, stiffness=frozen_array(K), mass=frozen_array(M), modes=modes)

@@ -1,0 +1,90 @@
+"""Rigid-diaphragm assembly: floor masses, element → floor transformation, global K and M.
+
+Each floor has three DOFs [u_x, u_y, θ] at its own mass centre, floor-major (design.md). An
+element line with unit direction (c, s) sees the floor displacement a·u along its line with
+a = [c, s, s·(x − x_m) − c·(y − y_m)] for any point (x, y) on the line; its condensed matrix k_e
+acts on the displacements of its floors relative to its bottom floor, so K = Σ Tᵀ k_e T.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+from core.elements import condensed_stiffness
+from core.errors import AnalysisError
+from core.geometry import area_properties
+from core.model import GRAVITY, Element, Project
+from core.results import FloatArray, FloorMass
+
+DOF_PER_FLOOR = 3
+
+
+def floor_masses(project: Project) -> tuple[FloorMass, ...]:
+    """Mass, centre and rotational inertia of each floor from its outline and point masses."""
+    floors = []
+    for index, (level, elevation) in enumerate(zip(project.levels, project.elevations, strict=True), start=1):
+        props = area_properties(level.outline, level.openings)
+        density = level.seismic_weight / GRAVITY  # t/m²
+        slab_mass = density * props.area
+        masses = [slab_mass] + [p.mass for p in level.point_masses]
+        xs = [props.centroid[0]] + [p.position[0] for p in level.point_masses]
+        ys = [props.centroid[1]] + [p.position[1] for p in level.point_masses]
+        total = float(sum(masses))
+        if total <= 0.0:
+            floors.append(FloorMass(index, level.name, elevation, props.area, 0.0, props.centroid, 0.0))
+            continue
+        cx = float(np.dot(masses, xs) / total)
+        cy = float(np.dot(masses, ys) / total)
+        inertia = density * props.polar + slab_mass * ((props.centroid[0] - cx) ** 2 + (props.centroid[1] - cy) ** 2)
+        inertia += sum(p.mass * ((p.position[0] - cx) ** 2 + (p.position[1] - cy) ** 2) for p in level.point_masses)
+        floors.append(FloorMass(index, level.name, elevation, props.area, total, (cx, cy), float(inertia)))
+    return tuple(floors)
+
+
+def line_vector(element: Element, floor: FloorMass) -> FloatArray:
+    """The row a that turns floor DOFs [u_x, u_y, θ] into displacement along the element's line."""
+    c, s = element.direction
+    x, y = element.start
+    xm, ym = floor.centre
+    return np.array([c, s, s * (x - xm) - c * (y - ym)])
+
+
+def element_transformation(element: Element, floors: tuple[FloorMass, ...]) -> FloatArray:
+    """T (storeys spanned × 3N): global DOFs → the element's floor displacements relative to its bottom."""
+    n = element.storey_count
+    T = np.zeros((n, DOF_PER_FLOOR * len(floors)))
+    below = line_vector(element, floors[element.bottom - 1]) if element.bottom > 0 else None
+    for i in range(n):
+        f = element.bottom + i  # 0-based index of the i-th floor the element spans
+        T[i, DOF_PER_FLOOR * f : DOF_PER_FLOOR * f + 3] = line_vector(element, floors[f])
+        if below is not None:
+            b = element.bottom - 1
+            T[i, DOF_PER_FLOOR * b : DOF_PER_FLOOR * b + 3] -= below
+    return T
+
+
+def element_storey_heights(project: Project, element: Element) -> tuple[float, ...]:
+    """Heights of the storeys an element spans, bottom up, m."""
+    return tuple(level.height for level in project.levels[element.bottom : element.top])
+
+
+def element_matrix(project: Project, element: Element) -> FloatArray:
+    """The element's condensed lateral stiffness over its storeys (cached in core.elements)."""
+    if element.length <= 0.0:
+        raise AnalysisError(f"element {element.id} has zero length", elements=(element.id,))
+    return condensed_stiffness(element.properties, element.length, element_storey_heights(project, element))
+
+
+def assemble_stiffness(project: Project, floors: tuple[FloorMass, ...]) -> FloatArray:
+    """Global lateral stiffness K = Σ Tᵀ k_e T, 3N × 3N."""
+    size = DOF_PER_FLOOR * len(floors)
+    K = np.zeros((size, size))
+    for element in project.elements:
+        T = element_transformation(element, floors)
+        K += T.T @ element_matrix(project, element) @ T
+    return (K + K.T) / 2
+
+
+def assemble_mass(floors: tuple[FloorMass, ...]) -> FloatArray:
+    """Diagonal mass matrix (m, m, J) per floor."""
+    return np.diag([v for f in floors for v in (f.mass, f.mass, f.inertia)])

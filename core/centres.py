@@ -1,0 +1,118 @@
+"""Centres of rigidity and torsional radii, by two documented definitions.
+
+No unique centre of rigidity exists for a multi-storey building (Hejal & Chopra 1989; Tso 1990,
+J. Struct. Eng. 116(5)); the two we report agree for one storey and for "proportionate" systems.
+
+(a) Storey centre: each element's storey stiffness k_e,j = storey shear / storey drift of that
+    element loaded alone by the static pattern; the storey's 3 × 3 stiffness about the floor's
+    mass centre is Σ k_e,j·aᵀa (a = [c, s, s(x − x_m) − c(y − y_m)], design.md), and the centre,
+    the torsional stiffness about it and the torsional radii r_x = √(K_θ/K_y), r_y = √(K_θ/K_x)
+    follow (EN 1998-1 §4.2.3.2(6), (8)).
+(b) No-twist (floor) centre: with the full stiffness K, the points through which the pattern's
+    floor forces must act, all floors at once, so that no floor rotates (Cheung & Tso 1986 [memory]).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+from scipy.linalg import cho_factor, cho_solve
+
+from core.assembly import element_matrix, line_vector
+from core.model import Element, Project
+from core.results import FloatArray, FloorMass
+
+RELATIVE_TOLERANCE = 1e-12
+
+
+@dataclass(frozen=True)
+class StoreyStiffness:
+    """Definition (a): the storey's stiffness about the floor's mass centre, and what follows."""
+
+    matrix: FloatArray
+    """3 × 3 [u_x, u_y, θ] storey stiffness about the mass centre of the floor above."""
+    centre: tuple[float, float] | None
+    """Centre of rigidity, m; None if the storey cannot resist both translations."""
+    torsional_stiffness: float
+    """K_θ about the centre of rigidity, kN·m/rad."""
+    torsional_radius: tuple[float, float]
+    """(r_x, r_y), m; (0, 0) if undefined."""
+
+
+def element_storey_stiffness(element_k: FloatArray, pattern: FloatArray) -> FloatArray:
+    """Storey shear over storey drift of one element loaded alone by ``pattern`` on its floors.
+
+    ``element_k`` is the element's condensed matrix relative to its bottom, ``pattern`` the floor
+    forces on the floors it spans, bottom up. A storey that does not drift the way the shear
+    pushes it (drift ≤ 0) gets 0: it adds no storey stiffness by this definition."""
+    try:
+        displacement = np.linalg.solve(element_k, pattern)
+    except np.linalg.LinAlgError:
+        return np.zeros_like(pattern)
+    drifts = np.diff(displacement, prepend=0.0)
+    shears = pattern[::-1].cumsum()[::-1]
+    with np.errstate(divide="ignore", invalid="ignore"):
+        k = np.where((drifts > 0) & (shears > 0), shears / drifts, 0.0)
+    return k
+
+
+def element_pattern(element: Element, patterns: FloatArray) -> FloatArray:
+    """The pattern (x or y, whichever axis the element's line is closer to) on its floors."""
+    c, s = element.direction
+    pattern = patterns[0] if abs(c) >= abs(s) else patterns[1]
+    return pattern[element.bottom : element.top]
+
+
+def storey_stiffnesses(
+    project: Project, floors: tuple[FloorMass, ...], patterns: FloatArray
+) -> tuple[StoreyStiffness, ...]:
+    """Definition (a) for every storey. ``patterns`` is (2, N): the floor forces in x and in y."""
+    n = len(floors)
+    matrices = np.zeros((n, 3, 3))
+    for element in project.elements:
+        k = element_storey_stiffness(element_matrix(project, element), element_pattern(element, patterns))
+        for i, storey in enumerate(range(element.bottom + 1, element.top + 1)):
+            a = line_vector(element, floors[storey - 1])
+            matrices[storey - 1] += k[i] * np.outer(a, a)
+    return tuple(_storey_properties(matrix) for matrix in matrices)
+
+
+def _storey_properties(matrix: FloatArray) -> StoreyStiffness:
+    translational = matrix[:2, :2]
+    coupling = matrix[:2, 2]
+    scale = max(float(np.abs(translational).max()), 1e-300)
+    determinant = float(np.linalg.det(translational / scale))
+    if determinant <= RELATIVE_TOLERANCE:
+        return StoreyStiffness(matrix, None, 0.0, (0.0, 0.0))
+    minus_y_x = np.linalg.solve(translational, coupling)  # [−y_r, x_r] about the mass centre
+    offset = (float(minus_y_x[1]), float(-minus_y_x[0]))
+    k_theta = float(matrix[2, 2] - coupling @ minus_y_x)
+    k_theta = max(k_theta, 0.0)
+    r_x = float(np.sqrt(k_theta / translational[1, 1]))
+    r_y = float(np.sqrt(k_theta / translational[0, 0]))
+    return StoreyStiffness(matrix, offset, k_theta, (r_x, r_y))
+
+
+def no_twist_offsets(K: FloatArray, patterns: FloatArray) -> FloatArray:
+    """Definition (b): (N, 2) offsets (x, y) of the no-twist centres from the floors' mass centres.
+
+    With θ = 0 on every floor, the translational rows give K_tt·u_t = f_t, and the floor moments
+    the loads must then supply are M = K_θt·u_t. A force F_x at height offset y has moment
+    −y·F_x, so y = −M/F_x from the x pattern; x = M/F_y from the y pattern. NaN where the pattern
+    puts no force on a floor."""
+    n = K.shape[0] // 3
+    t = np.array([i for i in range(3 * n) if i % 3 != 2])
+    r = np.arange(2, 3 * n, 3)
+    factor = cho_factor(K[np.ix_(t, t)])
+    loads = np.zeros((2 * n, 2))
+    loads[0::2, 0] = patterns[0]
+    loads[1::2, 1] = patterns[1]
+    moments = K[np.ix_(r, t)] @ cho_solve(factor, loads)  # (N, 2): from the x and the y pattern
+    offsets = np.full((n, 2), np.nan)
+    with np.errstate(divide="ignore", invalid="ignore"):
+        has_x = np.abs(patterns[0]) > 0
+        has_y = np.abs(patterns[1]) > 0
+        offsets[has_y, 0] = moments[has_y, 1] / patterns[1][has_y]
+        offsets[has_x, 1] = -moments[has_x, 0] / patterns[0][has_x]
+    return offsets

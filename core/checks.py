@@ -1,0 +1,437 @@
+"""Lateral checks: torsion ratio, A_x, drifts, element shares, vertical regularity, mode order,
+and the rule sets that judge them.
+
+Every judged figure becomes a :class:`Verdict` carrying its clause. The rule set chooses which
+limits are judged; the figures themselves are always computed.
+"""
+
+from __future__ import annotations
+
+import math
+from collections.abc import Sequence
+
+import numpy as np
+
+from core.lateral_results import (
+    DIRECTIONS,
+    TORSION_RATIO,
+    CaseResult,
+    Direction,
+    LoadCase,
+    ModeOrder,
+    Status,
+    StoreyLateral,
+    Verdict,
+)
+from core.model import LoadMethod, Project, RuleSet, Settings
+from core.results import FloatArray, FloorMass, Mode, frozen_array
+
+TORSION_IRREGULAR = 1.2
+"""ASCE 7-16 Table 12.3-1 type 1a: torsional irregularity above this ratio."""
+TORSION_EXTREME = 1.4
+"""ASCE 7-16 Table 12.3-1 type 1b: extreme torsional irregularity above this ratio."""
+AMPLIFICATION_CAP = 3.0
+"""ASCE 7-16 §12.8.4.3: A_x need not exceed 3.0."""
+ECCENTRICITY_LIMIT = 0.30
+"""EN 1998-1 §4.2.3.2(6) Eq. 4.1a: e_0 ≤ 0.30 r."""
+SOFT_STOREY = (0.70, 0.80)
+"""ASCE 7-16 Table 12.3-2 type 1a: stiffness below 70 % of the storey above or 80 % of the
+average of the three above."""
+EXTREME_SOFT_STOREY = (0.60, 0.70)
+"""ASCE 7-16 Table 12.3-2 type 1b: below 60 % / 70 %."""
+MASS_IRREGULAR = 1.5
+"""ASCE 7-16 Table 12.3-2 type 2: mass above 150 % of an adjacent storey's."""
+TORSION_PERIOD_RATIO = 0.9
+"""First torsional over first translational period: common practice, no source (some codes set
+0.9 [memory], references.md)."""
+
+EN_SOFT_CLAUSE = (
+    "EN 1998-1 §4.2.3.3(3): no abrupt change of storey stiffness; the figure is common practice, "
+    "no source (that of ASCE 7-16 Table 12.3-2)"
+)
+EN_MASS_CLAUSE = (
+    "EN 1998-1 §4.2.3.3(3): no abrupt change of storey mass; the figure is common practice, "
+    "no source (that of ASCE 7-16 Table 12.3-2)"
+)
+
+
+# --- response of one load case -----------------------------------------------------------------
+
+
+def point_displacements(
+    displacements: FloatArray, centres: FloatArray, points: FloatArray, direction: Direction
+) -> FloatArray:
+    """Rigid-floor displacement along ``direction`` at plan points.
+
+    ``displacements`` (N, 3) at the mass centres, ``centres`` (N, 2), ``points`` (N, P, 2):
+    u_x(p) = u_x − θ·(p_y − y_m), u_y(p) = u_y + θ·(p_x − x_m)."""
+    u, theta = displacements[:, :2], displacements[:, 2:3]
+    if direction == "x":
+        return u[:, 0:1] - theta * (points[:, :, 1] - centres[:, 1:2])
+    return u[:, 1:2] + theta * (points[:, :, 0] - centres[:, 0:1])
+
+
+def storey_drifts(
+    displacements: FloatArray, centres: FloatArray, points: FloatArray, direction: Direction
+) -> FloatArray:
+    """(N, P) drift of storey j at the points of level j: its floor's motion there less that of
+    the floor below at the same plan points (the base does not move)."""
+    top = point_displacements(displacements, centres, points, direction)
+    below = np.zeros_like(top)
+    if len(displacements) > 1:
+        below[1:] = point_displacements(displacements[:-1], centres[:-1], points[1:], direction)
+    return top - below
+
+
+def extreme_points(project: Project, direction: Direction) -> FloatArray:
+    """(N, 2, 2) the two outline vertices of each level farthest apart across ``direction``: lowest
+    and highest y for x loads, lowest and highest x for y loads. Drift along the load is linear
+    across it, so these are the two ends of ASCE 7 Table 12.3-1."""
+    axis = 1 if direction == "x" else 0
+    out = np.zeros((len(project.levels), 2, 2))
+    for j, level in enumerate(project.levels):
+        ring = np.asarray(level.outline, dtype=float)
+        out[j, 0] = ring[int(np.argmin(ring[:, axis]))]
+        out[j, 1] = ring[int(np.argmax(ring[:, axis]))]
+    return out
+
+
+def end_ratio(ends: FloatArray) -> FloatArray:
+    """max |δ| over |average δ| of the two ends, per row; inf if the average vanishes while an end
+    moves, 1 if neither end moves."""
+    largest = np.abs(ends).max(axis=1)
+    average = np.abs(ends.sum(axis=1)) / 2
+    ratio = np.ones(len(ends))
+    moving = largest > 0
+    with np.errstate(divide="ignore"):
+        ratio[moving] = np.where(
+            average[moving] > 1e-12 * largest[moving], largest[moving] / average[moving], math.inf
+        )
+    return ratio
+
+
+def amplification(end_displacements: FloatArray) -> FloatArray:
+    """A_x = (δ_max / 1.2 δ_avg)², 1 ≤ A_x ≤ 3 (ASCE 7-16 §12.8.4.3 Eq. 12.8-14)."""
+    ratio = end_ratio(end_displacements)
+    return np.clip((ratio / TORSION_IRREGULAR) ** 2, 1.0, AMPLIFICATION_CAP)
+
+
+def case_result(
+    case: LoadCase,
+    unit_displacements: FloatArray,
+    base_shear: float,
+    unit_forces: FloatArray,
+    offsets: FloatArray,
+    centres: FloatArray,
+    ends: FloatArray,
+    vertices: Sequence[FloatArray],
+) -> CaseResult:
+    """The response to ``case`` from the response to its pattern scaled to a 1 kN base shear.
+
+    Ratios come from the unit response, so they stay defined when the base shear is zero."""
+    U = unit_displacements
+    d = case.direction
+    n = len(U)
+    end_drifts = storey_drifts(U, centres, ends, d)
+    end_disp = point_displacements(U, centres, ends, d)
+    drifts = storey_drifts(U, centres, centres[:, None, :], d)[:, 0]
+    corner = np.zeros(n)
+    for j in range(n):
+        points = np.broadcast_to(vertices[j], (n, *vertices[j].shape))
+        corner[j] = np.abs(storey_drifts(U, centres, points, d)[j]).max()
+    forces = case.sign * base_shear * unit_forces
+    return CaseResult(
+        case=case,
+        forces=frozen_array(forces),
+        application_points=frozen_array(centres + offsets),
+        displacements=frozen_array(base_shear * U),
+        storey_shears=frozen_array(forces[::-1].cumsum()[::-1]),
+        drifts=frozen_array(base_shear * drifts),
+        end_drifts=frozen_array(base_shear * end_drifts),
+        end_points=frozen_array(ends),
+        torsion_ratio=frozen_array(end_ratio(end_drifts)),
+        end_displacements=frozen_array(base_shear * end_disp),
+        amplification=frozen_array(amplification(end_disp)),
+        corner_drifts=frozen_array(base_shear * corner),
+    )
+
+
+# --- drifts ------------------------------------------------------------------------------------
+
+
+def drift_amplification(settings: Settings) -> float:
+    """Elastic → design drift: q_d = q (EN 1998-1 §4.3.4(1), q_d = q by default), C_d/I_e
+    (ASCE 7-16 §12.8.6 Eq. 12.8-15), or 1 for a plain coefficient (loads taken as given)."""
+    if settings.load_method is LoadMethod.EN1998:
+        return settings.eurocode8.behaviour_factor
+    if settings.load_method is LoadMethod.ASCE7:
+        return settings.asce7.deflection_amplification / settings.asce7.importance
+    return 1.0
+
+
+def drift_reduction(settings: Settings) -> float:
+    """ν of EN 1998-1 §4.4.3.2(2) under the EN 1998 rule set; 1 under ASCE 7."""
+    return settings.drift_reduction if settings.rule_set is RuleSet.EN1998 else 1.0
+
+
+# --- regularity --------------------------------------------------------------------------------
+
+
+def stiffness_ratios(stiffness: FloatArray) -> tuple[FloatArray, FloatArray]:
+    """Per storey: k_j / k_(j+1), and k_j / mean(k_(j+1..j+3)); NaN where the storeys above are
+    missing (ASCE 7-16 Table 12.3-2 type 1a)."""
+    n = len(stiffness)
+    above = np.full(n, np.nan)
+    average = np.full(n, np.nan)
+    for j in range(n - 1):
+        if stiffness[j + 1] > 0:
+            above[j] = stiffness[j] / stiffness[j + 1]
+        if j + 3 < n:
+            mean = stiffness[j + 1 : j + 4].mean()
+            if mean > 0:
+                average[j] = stiffness[j] / mean
+    return above, average
+
+
+def mass_ratios(masses: FloatArray) -> FloatArray:
+    """(N, 2) m_j / m_(j−1) and m_j / m_(j+1); NaN where there is no such floor."""
+    n = len(masses)
+    out = np.full((n, 2), np.nan)
+    with np.errstate(divide="ignore", invalid="ignore"):
+        out[1:, 0] = masses[1:] / masses[:-1]
+        out[:-1, 1] = masses[:-1] / masses[1:]
+    return out
+
+
+# --- element shares ----------------------------------------------------------------------------
+
+
+def element_shares(shears: FloatArray, along_load: FloatArray, storey_shears: FloatArray) -> FloatArray:
+    """(cases, storeys) share of the storey shear: the element shear's component along the load
+    over the case's storey shear (both signed, so a share is positive when the element helps)."""
+    with np.errstate(divide="ignore", invalid="ignore"):
+        share = shears * along_load[:, None] / storey_shears
+    return np.where(np.isfinite(share), share, 0.0)
+
+
+# --- modes -------------------------------------------------------------------------------------
+
+
+def mode_order(modes: Sequence[Mode]) -> ModeOrder:
+    """Where the first rotation-dominated mode falls (dominant = largest kinetic energy share)."""
+    firsts: list[int | None] = [None, None, None]
+    for mode in modes:
+        k = int(np.argmax(mode.shares))
+        if firsts[k] is None:
+            firsts[k] = mode.number
+    first_x, first_y, first_torsion = firsts
+    translational = [m for m in (first_x, first_y) if m is not None]
+    ratio = 0.0
+    before = False
+    if first_torsion is not None and translational:
+        ratio = modes[first_torsion - 1].period / modes[min(translational) - 1].period
+        before = len(translational) < 2 or first_torsion < max(translational)
+    return ModeOrder(first_x, first_y, first_torsion, ratio, before)
+
+
+# --- rule sets ---------------------------------------------------------------------------------
+
+
+def judge(settings: Settings, storeys: Sequence[StoreyLateral], order: ModeOrder) -> tuple[Verdict, ...]:
+    """The verdicts of the project's rule set, then those common to both sets."""
+    verdicts: list[Verdict] = []
+    if settings.rule_set is RuleSet.EN1998:
+        for s in storeys:
+            verdicts.extend(_en1998_plan(s))
+        verdicts.extend(_regularity(storeys, en1998=True))
+    else:
+        for s in storeys:
+            verdicts.extend(_asce7_torsion(s))
+        verdicts.extend(_regularity(storeys, en1998=False))
+    for s in storeys:
+        verdicts.extend(_drift(settings, s))
+    verdicts.extend(_mode_order(order))
+    return tuple(verdicts)
+
+
+def _en1998_plan(s: StoreyLateral) -> list[Verdict]:
+    out = []
+    # Eq. 4.1a/4.1b with the direction of analysis: e_0x and r_x belong to the analysis in y.
+    for i, (ecc_axis, analysis) in enumerate((("x", "y"), ("y", "x"))):
+        if s.rigidity_centre is None:
+            continue
+        ratio = s.eccentricity_ratio[i]
+        out.append(
+            Verdict(
+                name="eccentricity over torsional radius",
+                value=ratio,
+                limit=ECCENTRICITY_LIMIT,
+                status=Status.PASS if ratio <= ECCENTRICITY_LIMIT else Status.WARN,
+                clause="EN 1998-1 §4.2.3.2(6) Eq. 4.1a",
+                storey=s.storey,
+                direction=analysis,
+                note=f"e_0{ecc_axis}/r_{ecc_axis}; above the limit the building is not regular in plan "
+                "(§4.2.3.1: a spatial model and the regularity consequences apply).",
+            )
+        )
+        radius = s.radius_ratio[i]
+        out.append(
+            Verdict(
+                name="torsional radius over radius of gyration",
+                value=radius,
+                limit=1.0,
+                status=Status.PASS if radius >= 1.0 else Status.FAIL,
+                clause="EN 1998-1 §4.2.3.2(6) Eq. 4.1b",
+                storey=s.storey,
+                direction=analysis,
+                note=f"r_{ecc_axis}/l_s; below 1 the system is torsionally flexible (for concrete "
+                "buildings a much lower behaviour factor, §5.2.2.1).",
+            )
+        )
+    return out
+
+
+def _asce7_torsion(s: StoreyLateral) -> list[Verdict]:
+    out = []
+    for i, d in enumerate(DIRECTIONS):
+        ratio = s.torsion_ratio[i]
+        if ratio <= TORSION_IRREGULAR:
+            status, note = Status.PASS, "no torsional irregularity."
+        elif ratio <= TORSION_EXTREME:
+            status, note = Status.WARN, "torsional irregularity type 1a; A_x amplifies accidental torsion."
+        else:
+            status, note = Status.FAIL, "extreme torsional irregularity type 1b (§12.3.3.1 limits its use)."
+        out.append(
+            Verdict(
+                name=TORSION_RATIO,
+                value=ratio,
+                limit=TORSION_IRREGULAR,
+                status=status,
+                clause="ASCE 7-16 Table 12.3-1 types 1a (> 1.2) and 1b (> 1.4)",
+                storey=s.storey,
+                direction=d,
+                note=f"largest storey drift at an end over the average of both ends; {note}",
+            )
+        )
+    return out
+
+
+def _regularity(storeys: Sequence[StoreyLateral], en1998: bool) -> list[Verdict]:
+    out = []
+    top = len(storeys)
+    for s in storeys:
+        for i, d in enumerate(DIRECTIONS):
+            for ratio, (warn_at, fail_at), what in (
+                (s.stiffness_ratio_above[i], (SOFT_STOREY[0], EXTREME_SOFT_STOREY[0]), "storey above"),
+                (s.stiffness_ratio_average[i], (SOFT_STOREY[1], EXTREME_SOFT_STOREY[1]), "three storeys above"),
+            ):
+                if not math.isfinite(ratio):
+                    continue
+                if ratio >= warn_at:
+                    status = Status.PASS
+                elif en1998 or ratio >= fail_at:
+                    status = Status.WARN
+                else:
+                    status = Status.FAIL
+                out.append(
+                    Verdict(
+                        name=f"storey stiffness over {what}",
+                        value=ratio,
+                        limit=warn_at,
+                        status=status,
+                        clause=EN_SOFT_CLAUSE if en1998 else "ASCE 7-16 Table 12.3-2 types 1a and 1b",
+                        storey=s.storey,
+                        direction=d,
+                        note="a soft storey below the limit (ASCE 7 extreme soft storey below "
+                        f"{fail_at:.0%}).",
+                    )
+                )
+        # A roof lighter than the floor below need not be considered (ASCE 7-16 Table 12.3-2 type 2).
+        candidates = [s.mass_ratio[0]]
+        if s.storey + 1 < top:
+            candidates.append(s.mass_ratio[1])
+        finite = [r for r in candidates if math.isfinite(r)]
+        if finite:
+            ratio = max(finite)
+            out.append(
+                Verdict(
+                    name="mass over adjacent storey",
+                    value=ratio,
+                    limit=MASS_IRREGULAR,
+                    status=Status.PASS if ratio <= MASS_IRREGULAR else Status.WARN,
+                    clause=EN_MASS_CLAUSE if en1998 else "ASCE 7-16 Table 12.3-2 type 2",
+                    storey=s.storey,
+                    note="a heavy floor between lighter ones above the limit (weight irregularity).",
+                )
+            )
+    return out
+
+
+def _drift(settings: Settings, s: StoreyLateral) -> list[Verdict]:
+    out = []
+    nu = drift_reduction(settings)
+    for i, d in enumerate(DIRECTIONS):
+        if settings.rule_set is RuleSet.EN1998:
+            value = nu * s.drift_ratio[i]
+            clause = f"EN 1998-1 §4.4.3.2(1): ν·d_r ≤ limit·h, ν = {nu:g} (§4.4.3.2(2)); d_r = q·d_e (§4.3.4)"
+            where = "at the mass centre"
+        else:
+            irregular = s.torsion_ratio[i] > TORSION_IRREGULAR
+            value = s.corner_drift_ratio[i] if irregular else s.drift_ratio[i]
+            clause = "ASCE 7-16 §12.12.1 (Δ = C_d·δ_e/I_e, §12.8.6; at the edges if torsionally irregular)"
+            where = "at the worst corner" if irregular else "at the mass centre"
+        out.append(
+            Verdict(
+                name="storey drift ratio",
+                value=value,
+                limit=settings.drift_limit,
+                status=Status.PASS if value <= settings.drift_limit else Status.FAIL,
+                clause=clause,
+                storey=s.storey,
+                direction=d,
+                note=f"design drift {where} over the storey height, against the project's limit.",
+            )
+        )
+    return out
+
+
+def _mode_order(order: ModeOrder) -> list[Verdict]:
+    if order.first_torsion is None:
+        return []
+    source = "common practice, no source"
+    return [
+        Verdict(
+            name="first rotational mode",
+            value=float(order.first_torsion),
+            limit=3.0,
+            status=Status.WARN if order.torsion_before_translation else Status.PASS,
+            clause=source,
+            note="the first rotation-dominated mode should follow both translational ones.",
+        ),
+        Verdict(
+            name="rotational over translational period",
+            value=order.period_ratio,
+            limit=TORSION_PERIOD_RATIO,
+            status=Status.PASS if order.period_ratio <= TORSION_PERIOD_RATIO else Status.WARN,
+            clause=f"{source} (some codes set {TORSION_PERIOD_RATIO} [memory])",
+            note="period of the first rotation-dominated mode over the longest translational period.",
+        ),
+    ]
+
+
+def design_drift_ratios(
+    cases: Sequence[CaseResult], heights: FloatArray, direction: Direction, factor: float
+) -> tuple[FloatArray, FloatArray]:
+    """Worst design drift ratio per storey over the cases in ``direction``: at the mass centre and
+    at the worst corner."""
+    chosen = [c for c in cases if c.case.direction == direction]
+    if not chosen:
+        return np.zeros(len(heights)), np.zeros(len(heights))
+    centre = np.max([np.abs(c.drifts) for c in chosen], axis=0)
+    corner = np.max([c.corner_drifts for c in chosen], axis=0)
+    return factor * centre / heights, factor * corner / heights
+
+
+def floor_arrays(floors: Sequence[FloorMass]) -> tuple[FloatArray, FloatArray]:
+    """Masses (N,) and mass centres (N, 2) of the floors."""
+    return np.array([f.mass for f in floors]), np.array([f.centre for f in floors], dtype=float)

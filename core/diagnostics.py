@@ -1,0 +1,213 @@
+"""Stability diagnostics, run before anything is solved.
+
+Each finding stops the analysis with :class:`core.errors.AnalysisError` whose message says in
+words which level moves how and names the elements, so the engineer knows what to fix; no numpy
+error or NaN ever reaches the results.
+
+The layout checks are exact for the rigid-diaphragm model: if every element spanning storey j is
+parallel, or every element line of storey j passes through one point, then level j and all levels
+above can move together (slide across the lines, or turn about the point) without deforming any
+element — elements above move rigidly with their bottom floor, and those spanning storey j see no
+displacement along their own lines.
+"""
+
+from __future__ import annotations
+
+import math
+from collections.abc import Sequence
+
+import numpy as np
+import shapely
+from scipy.linalg import eigh
+
+from core.errors import AnalysisError
+from core.model import Element, Project
+from core.results import FloatArray, FloorMass
+
+ZERO_LENGTH = 1e-6
+"""Element lines shorter than this, m, have no direction."""
+PARALLEL_TOLERANCE = 1e-6
+"""|sin| of the angle between two lines below which they count as parallel."""
+CONCURRENT_TOLERANCE = 1e-6
+"""Distance of a line from the common point, relative to the plan size, below which lines meet."""
+SINGULAR = 1e-12
+"""Smallest over largest eigenvalue of the diagonally scaled K at or below which K is singular."""
+ILL_CONDITIONED = 1e-9
+"""… and below which it is too nearly singular for the results to mean anything."""
+
+
+def check_layout(project: Project) -> None:
+    """Raise AnalysisError for a layout that cannot stand: zero-length elements, elements off
+    their floors' outlines, storeys without elements, all-parallel or concurrent storeys."""
+    if not project.levels:
+        raise AnalysisError("the project has no levels: draw a floor outline first")
+    _zero_length(project)
+    _outside_outline(project)
+    for storey in range(1, len(project.levels) + 1):
+        _storey_layout(project, storey)
+
+
+def check_stiffness(project: Project, floors: Sequence[FloorMass], K: FloatArray) -> None:
+    """Raise AnalysisError if K is not finite, singular or ill-conditioned, saying which levels
+    move how in the (near) mechanism and which elements span the storeys that deform."""
+    if not np.all(np.isfinite(K)):
+        raise AnalysisError("the lateral stiffness has non-finite entries: check the element properties")
+    diagonal = np.diag(K).copy()
+    if np.any(diagonal <= 0.0):
+        vector = np.zeros(len(diagonal))
+        vector[int(np.argmin(diagonal))] = 1.0
+        _raise_mechanism(project, floors, vector, "can move without any resistance")
+    scale = 1.0 / np.sqrt(diagonal)
+    scaled = K * scale[:, None] * scale[None, :]
+    values, vectors = eigh(scaled)
+    ratio = values[0] / values[-1]
+    if ratio <= SINGULAR:
+        _raise_mechanism(project, floors, vectors[:, 0] * scale, "can move without any resistance")
+    if ratio <= ILL_CONDITIONED:
+        _raise_mechanism(
+            project,
+            floors,
+            vectors[:, 0] * scale,
+            f"is almost unrestrained (stiffness ratio {ratio:.1e}; the results would be meaningless)",
+        )
+
+
+# --- layout ------------------------------------------------------------------------------------
+
+
+def _zero_length(project: Project) -> None:
+    short = [e for e in project.elements if e.length <= ZERO_LENGTH]
+    if short:
+        names = ", ".join(f"{e.id} at ({e.start[0]:.2f}, {e.start[1]:.2f})" for e in short)
+        raise AnalysisError(
+            f"element{'s' if len(short) > 1 else ''} {names} {'have' if len(short) > 1 else 'has'} zero "
+            "length: start and end coincide, so it has no direction to resist load in. "
+            "Drag one end away or delete it.",
+            levels=tuple(sorted({j for e in short for j in range(e.bottom + 1, e.top + 1)})),
+            elements=tuple(e.id for e in short),
+        )
+
+
+def _outside_outline(project: Project) -> None:
+    polygons = [shapely.Polygon(level.outline) for level in project.levels]
+    bad: list[tuple[Element, int]] = []
+    for element in project.elements:
+        line = shapely.LineString([element.start, element.end])
+        first = max(element.bottom, 1)  # the floors it connects to: its bottom floor (if any) and those it spans
+        for level in range(first, element.top + 1):
+            polygon = polygons[level - 1]
+            size = math.dist(*np.reshape(polygon.bounds, (2, 2)))
+            if line.distance(polygon) > 0.0 or not polygon.buffer(1e-6 * size + 1e-9).covers(line):
+                bad.append((element, level))
+    if bad:
+        parts = [f"{e.id} leaves the outline of level {project.levels[j - 1].name!r}" for e, j in bad]
+        raise AnalysisError(
+            f"{'; '.join(parts)}: an element must stand within every floor it connects. "
+            "Move it inside the outline or change the levels it spans.",
+            levels=tuple(sorted({j for _, j in bad})),
+            elements=tuple(dict.fromkeys(e.id for e, _ in bad)),
+        )
+
+
+def _storey_layout(project: Project, storey: int) -> None:
+    level = project.levels[storey - 1]
+    moving = tuple(range(storey, len(project.levels) + 1))
+    above = " and every level above it" if storey < len(project.levels) else ""
+    elements = project.elements_in_storey(storey)
+    where = f"storey {storey} (below level {level.name!r})"
+    if not elements:
+        raise AnalysisError(
+            f"{where} has no lateral elements: level {level.name!r}{above} can slide and turn freely. "
+            "Place at least three element lines there, not all parallel and not all through one point.",
+            levels=moving,
+        )
+    names = ", ".join(e.id for e in elements)
+    ids = tuple(e.id for e in elements)
+    directions = np.array([e.direction for e in elements])
+    c0, s0 = directions[0]
+    cross = np.abs(directions[:, 0] * s0 - directions[:, 1] * c0)
+    size = max(math.dist(*np.reshape(shapely.Polygon(level.outline).bounds, (2, 2))), 1e-9)
+    if np.all(cross <= PARALLEL_TOLERANCE):
+        normal = np.array([-s0, c0])
+        offsets = np.array([normal @ np.asarray(e.start) for e in elements])
+        collinear = np.ptp(offsets) <= CONCURRENT_TOLERANCE * size
+        turn = f" and, since they lie on one line, turn about it" if collinear else ""
+        raise AnalysisError(
+            f"every element of {where} runs {_describe_direction(c0, s0)} ({names}): nothing resists "
+            f"movement {_describe_direction(-s0, c0)}, so level {level.name!r}{above} can slide "
+            f"{_describe_direction(-s0, c0)}{turn}. Add an element across them.",
+            levels=moving,
+            elements=ids,
+        )
+    point = _common_point(elements, size)
+    if point is not None:
+        raise AnalysisError(
+            f"the lines of every element of {where} ({names}) pass through one point, "
+            f"({point[0]:.2f}, {point[1]:.2f}): nothing resists turning about it, so level "
+            f"{level.name!r}{above} can rotate freely. Move an element so its line misses that point.",
+            levels=moving,
+            elements=ids,
+        )
+
+
+def _common_point(elements: Sequence[Element], size: float) -> FloatArray | None:
+    """The point all element lines pass through, if there is one (least squares, then a check)."""
+    normals = np.array([(-e.direction[1], e.direction[0]) for e in elements])
+    offsets = np.array([n @ np.asarray(e.start) for n, e in zip(normals, elements, strict=True)])
+    point, *_ = np.linalg.lstsq(normals, offsets, rcond=None)
+    if np.all(np.abs(normals @ point - offsets) <= CONCURRENT_TOLERANCE * size):
+        return point
+    return None
+
+
+def _describe_direction(c: float, s: float) -> str:
+    """'along x', 'along y', or 'at 30° to x' for a unit vector (sense ignored)."""
+    angle = math.degrees(math.atan2(s, c)) % 180.0
+    if min(angle, 180.0 - angle) < 0.5:
+        return "along x"
+    if abs(angle - 90.0) < 0.5:
+        return "along y"
+    return f"at {angle:.0f}° to x"
+
+
+# --- stiffness ---------------------------------------------------------------------------------
+
+
+def _raise_mechanism(project: Project, floors: Sequence[FloorMass], vector: FloatArray, what: str) -> None:
+    """Describe the (near) null vector of K floor by floor and raise."""
+    motion = vector.reshape(-1, 3)
+    radii = np.array([max(f.radius_of_gyration, 1e-9) for f in floors])
+    size = np.hypot(np.hypot(motion[:, 0], motion[:, 1]), motion[:, 2] * radii)
+    largest = size.max()
+    moving = [j for j in range(len(floors)) if size[j] >= 0.1 * largest]
+    parts = [_describe_floor_motion(floors[j], motion[j], radii[j]) for j in moving]
+    # Storeys that deform: the floor's motion differs from that of the floor below.
+    deforming = []
+    for j in range(len(floors)):
+        below = _rigid_motion_at(motion[j - 1], floors[j - 1].centre, floors[j].centre) if j else np.zeros(3)
+        relative = motion[j] - below
+        if np.hypot(np.hypot(relative[0], relative[1]), relative[2] * radii[j]) >= 0.1 * largest:
+            deforming.append(j + 1)
+    elements = tuple(dict.fromkeys(e.id for s in deforming for e in project.elements_in_storey(s)))
+    named = f" Elements of the storeys involved: {', '.join(elements)}." if elements else ""
+    raise AnalysisError(
+        f"the building {what}: {'; '.join(parts)}.{named} Add or stiffen elements there.",
+        levels=tuple(floors[j].level for j in moving),
+        elements=elements,
+    )
+
+
+def _rigid_motion_at(motion: FloatArray, centre: tuple[float, float], point: tuple[float, float]) -> FloatArray:
+    """A floor's rigid motion (u_x, u_y, θ at ``centre``) expressed at ``point``."""
+    ux, uy, theta = motion
+    return np.array([ux - theta * (point[1] - centre[1]), uy + theta * (point[0] - centre[0]), theta])
+
+
+def _describe_floor_motion(floor: FloorMass, motion: FloatArray, radius: float) -> str:
+    ux, uy, theta = motion
+    translation = math.hypot(ux, uy)
+    if abs(theta) * radius <= 1e-3 * translation:
+        return f"level {floor.name!r} slides {_describe_direction(ux / translation, uy / translation)}"
+    x = floor.centre[0] - uy / theta
+    y = floor.centre[1] + ux / theta
+    return f"level {floor.name!r} turns about ({x:.2f}, {y:.2f})"

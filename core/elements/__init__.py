@@ -1,0 +1,101 @@
+"""The condensed lateral stiffness of each element kind, and the member forces behind it.
+
+Each kind builds a planar model in the element's own vertical plane (one module per kind) and
+condenses it to one lateral DOF per floor it spans: DOF i is the lateral displacement of the
+i-th floor above the element's bottom, along the element's line, relative to that bottom (the
+element's base: fixed against rotation and vertical movement). Matrices are cached by
+(properties, length, storey heights) — not by position — so moving an element in plan re-uses
+its matrix. Length and heights enter the key rounded to 1 µm, so the rounding noise of a move
+(a length recomputed from shifted end points) still hits the cache.
+"""
+
+from __future__ import annotations
+
+import math
+from collections.abc import Callable
+from functools import lru_cache
+from typing import Any
+
+import numpy as np
+import numpy.typing as npt
+
+from core.elements import braced_frame, moment_frame, shear_wall, spring
+from core.elements.forces import CondensedElement, ElementForces
+from core.errors import ModelError
+from core.model import BracedFrame, ElementProperties, MomentFrame, ShearWall, Spring
+from core.results import FloatArray
+
+__all__ = ["ElementForces", "condensed_stiffness", "member_forces"]
+
+KEY_DIGITS = 6
+"""Length and storey heights are rounded to this many decimals of a metre (1 µm) for the cache."""
+
+
+def condensed_stiffness(
+    properties: ElementProperties, length: float, storey_heights: tuple[float, ...]
+) -> FloatArray:
+    """n × n lateral stiffness (kN/m) of one element, n = len(storey_heights) = storeys it spans.
+
+    DOF i is the lateral displacement along the element's line of the i-th floor it spans,
+    relative to its bottom. Returns a read-only array, the same object for equal inputs.
+    Raises ModelError on degenerate input (zero length, a storey without height, …).
+    """
+    return _model(properties, length, storey_heights).stiffness
+
+
+def member_forces(
+    properties: ElementProperties,
+    length: float,
+    storey_heights: tuple[float, ...],
+    displacements: npt.ArrayLike,
+) -> ElementForces:
+    """Member forces of one element for its floor displacements (n,) along its line, relative to
+    its bottom: storey shears, overturning moments and, by kind, brace, column and beam forces
+    (see :class:`ElementForces`)."""
+    model = _model(properties, length, storey_heights)
+    n = model.stiffness.shape[0]
+    try:
+        d = np.asarray(displacements, dtype=float)
+    except (TypeError, ValueError) as error:
+        raise ModelError("displacements", "must be numbers, one per floor") from error
+    if d.shape != (n,):
+        raise ModelError("displacements", f"needs {n} values (one per floor spanned), got shape {d.shape}")
+    if not np.all(np.isfinite(d)):
+        raise ModelError("displacements", "must be finite numbers")
+    return model.forces(d)
+
+
+_BUILDERS: dict[type, Callable[[Any, float, tuple[float, ...]], CondensedElement]] = {
+    BracedFrame: braced_frame.condense,
+    ShearWall: shear_wall.condense,
+    MomentFrame: moment_frame.condense,
+    Spring: spring.condense,
+}
+
+
+def _model(
+    properties: ElementProperties, length: float, storey_heights: tuple[float, ...]
+) -> CondensedElement:
+    """The cached condensed model, after checking the input and rounding the key."""
+    if type(properties) not in _BUILDERS:
+        raise ModelError("properties", f"not an element kind: {type(properties).__name__}")
+    try:
+        length = round(float(length), KEY_DIGITS)
+        heights = tuple(round(float(h), KEY_DIGITS) for h in storey_heights)
+    except (TypeError, ValueError, OverflowError) as error:
+        raise ModelError("", "the length and the storey heights must be finite numbers") from error
+    if not (math.isfinite(length) and length > 0.0):
+        raise ModelError("length", f"the element line must be at least 1 µm long, got {length!r}")
+    if not heights:
+        raise ModelError("storey_heights", "an element must span at least one storey")
+    for i, h in enumerate(heights):
+        if not (math.isfinite(h) and h > 0.0):
+            raise ModelError(f"storey_heights[{i}]", f"must be a height of at least 1 µm, got {h!r}")
+    return _condensed(properties, length, heights)
+
+
+@lru_cache(maxsize=4096)
+def _condensed(
+    properties: ElementProperties, length: float, storey_heights: tuple[float, ...]
+) -> CondensedElement:
+    return _BUILDERS[type(properties)](properties, length, storey_heights)

@@ -1,0 +1,82 @@
+"""Undamped free vibration of the rigid-diaphragm model: K φ = ω² M φ.
+
+M is diagonal and positive, so the problem is solved in the symmetric standard form
+M^(-1/2) K M^(-1/2) v = ω² v, and φ = M^(-1/2) v comes out mass-normalised (φᵀMφ = 1).
+Participation uses ground translation in x and y, and rigid rotation about the vertical axis
+through the building's overall mass centre, so each direction's mass ratios sum to 1.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+from scipy.linalg import eigh
+
+from core.errors import AnalysisError
+from core.results import FloatArray, FloorMass, Mode, frozen_array
+
+SINGULAR_TOLERANCE = 1e-10
+"""Smallest ω² over the largest below which the stiffness is taken as singular."""
+
+
+def influence_vectors(floors: tuple[FloorMass, ...]) -> FloatArray:
+    """(3, 3N) rows ι_x, ι_y, ι_θ: unit ground translation in x, y, and unit rigid rotation about
+    the overall mass centre, expressed in each floor's DOFs at its own mass centre."""
+    masses = np.array([f.mass for f in floors])
+    centres = np.array([f.centre for f in floors])
+    X, Y = (masses @ centres) / masses.sum()
+    iota = np.zeros((3, 3 * len(floors)))
+    for j, (x, y) in enumerate(centres):
+        iota[0, 3 * j] = 1.0
+        iota[1, 3 * j + 1] = 1.0
+        iota[2, 3 * j : 3 * j + 3] = (-(y - Y), x - X, 1.0)
+    return iota
+
+
+def modal_analysis(K: FloatArray, M: FloatArray, floors: tuple[FloorMass, ...]) -> tuple[Mode, ...]:
+    """All modes, longest period first, with participation, mass ratios and energy shares."""
+    m = np.diag(M).copy()
+    if np.any(m <= 0.0):
+        bad = sorted({floors[i // 3].name for i in np.flatnonzero(m <= 0.0)})
+        raise AnalysisError(
+            f"level {', '.join(bad)} has no mass: give it a seismic weight or a point mass",
+            levels=tuple(floors[i // 3].level for i in np.flatnonzero(m <= 0.0)),
+        )
+    scale = 1.0 / np.sqrt(m)
+    A = K * scale[:, None] * scale[None, :]
+    eigenvalues, vectors = eigh(A)
+    largest = max(abs(eigenvalues[-1]), 1e-300)
+    if eigenvalues[0] <= SINGULAR_TOLERANCE * largest:
+        raise AnalysisError("the lateral stiffness is singular: some floor can move without resistance")
+    phi = vectors * scale[:, None]
+    # A deterministic sign: the largest component of each mode is positive.
+    for j in range(phi.shape[1]):
+        k = int(np.argmax(np.abs(phi[:, j])))
+        if phi[k, j] < 0:
+            phi[:, j] = -phi[:, j]
+
+    iota = influence_vectors(floors)
+    totals = np.einsum("ri,i,ri->r", iota, m, iota)
+    gammas = (phi.T * m) @ iota.T  # (modes, 3)
+    ratios = gammas**2 / totals
+    cumulative = np.cumsum(ratios, axis=0)
+    energy = phi**2 * m[:, None]  # (3N, modes); columns sum to 1
+    shares = np.stack([energy[0::3].sum(axis=0), energy[1::3].sum(axis=0), energy[2::3].sum(axis=0)], axis=1)
+
+    modes = []
+    for j in range(phi.shape[1]):
+        modes.append(
+            Mode(
+                number=j + 1,
+                omega=float(np.sqrt(eigenvalues[j])),
+                shape=frozen_array(phi[:, j].reshape(-1, 3)),
+                participation=_triple(gammas[j]),
+                mass_ratio=_triple(ratios[j]),
+                cumulative=_triple(cumulative[j]),
+                shares=_triple(shares[j]),
+            )
+        )
+    return tuple(modes)
+
+
+def _triple(values: FloatArray) -> tuple[float, float, float]:
+    return (float(values[0]), float(values[1]), float(values[2]))

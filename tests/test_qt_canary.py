@@ -1,0 +1,42 @@
+"""Canary for the PySide6 6.12.0 / Python 3.11 defect: each signal emit leaked a reference to True
+and the process aborted ("Fatal Python error: bool_dealloc") after about two thousand emits."""
+
+from __future__ import annotations
+
+import sys
+
+from PySide6.QtCore import QObject, Signal
+
+
+class _Emitter(QObject):
+    pinged = Signal()
+    flagged = Signal(bool)
+
+
+def test_signal_emits_keep_the_refcount_of_true(qapp):
+    emitter = _Emitter()
+    received = []
+    emitter.flagged.connect(received.append)
+    before = sys.getrefcount(True)
+    for _ in range(10_000):
+        emitter.pinged.emit()
+        emitter.flagged.emit(True)
+    received.clear()
+    assert sys.getrefcount(True) >= before
+
+
+def test_core_never_imports_qt():
+    """Architecture contract (design.md): core/ is pure Python and never imports Qt."""
+    import ast
+    from pathlib import Path
+
+    qt = ("PySide6", "pyqtgraph", "shiboken6", "PyQt5", "PyQt6")
+    core = Path(__file__).resolve().parent.parent / "core"
+    offenders = []
+    for path in core.rglob("*.py"):
+        for node in ast.walk(ast.parse(path.read_text(encoding="utf-8"))):
+            names = [a.name for a in node.names] if isinstance(node, ast.Import) else []
+            if isinstance(node, ast.ImportFrom) and node.module:
+                names = [node.module]
+            offenders += [f"{path.name}: {n}" for n in names if n.split(".")[0] in qt]
+    assert offenders == []
