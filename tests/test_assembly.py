@@ -109,3 +109,13 @@ def test_floor_without_mass_is_an_analysis_error():
     levels = (project.levels[0], dataclasses.replace(project.levels[1], seismic_weight=0.0))
     with pytest.raises(AnalysisError, match="L2 has no mass"):
         analyse(dataclasses.replace(project, levels=levels))
+
+
+def test_results_are_immutable():
+    results = analyse(spring_building([1e5, 1e5], [100.0, 100.0]))
+    with pytest.raises(ValueError):
+        results.stiffness[0, 0] = 0.0
+    with pytest.raises(ValueError):
+        results.modes[0].shape[0, 0] = 0.0
+    with pytest.raises(dataclasses.FrozenInstanceError):
+        results.modes = ()  # type: ignore[misc]

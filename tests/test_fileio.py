@@ -114,3 +114,11 @@ def test_round_trip_keeps_every_float(x, y, length, height):
     element = Element("B", (x + 1.0, y + 1.0), (x + 1.0 + length / 3, y + 1.0), 0, 1)
     project = Project(levels=(level,), elements=(element,))
     assert loads(dumps(project)) == project
+
+
+def test_bundled_samples_are_canonical_files():
+    """Every sample loads, and saving it again reproduces the file byte for byte."""
+    from app.resources import sample_projects
+
+    for path in sample_projects():
+        assert dumps(load_project(path)) == path.read_text(encoding="utf-8"), path.name
