@@ -2,29 +2,23 @@
 
 from __future__ import annotations
 
-from importlib import resources
 from pathlib import Path
 
-_SOURCE_ROOT = Path(__file__).resolve().parent.parent
+_PACKAGE = Path(__file__).resolve().parent
 
 
-def _bundled_folder(package: str, source_name: str) -> Path:
-    """The folder shipped as ``package`` when installed, else ``source_name`` beside app/."""
-    try:
-        folder = Path(str(resources.files(package)))
-        if folder.is_dir():
-            return folder
-    except ModuleNotFoundError:
-        pass
-    return _SOURCE_ROOT / source_name
+def _bundled_folder(name: str) -> Path:
+    """``app/<name>`` in an installed copy (package data), else ``<name>/`` beside app/ in a checkout."""
+    installed = _PACKAGE / name
+    return installed if installed.is_dir() else _PACKAGE.parent / name
 
 
 def icons_folder() -> Path:
-    return _bundled_folder("app.icons", "icons")
+    return _bundled_folder("icons")
 
 
 def samples_folder() -> Path:
-    return _bundled_folder("app.sample_projects", "sample_projects")
+    return _bundled_folder("sample_projects")
 
 
 def icon_path(name: str) -> Path:

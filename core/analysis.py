@@ -3,7 +3,9 @@
 from __future__ import annotations
 
 from core.assembly import assemble_mass, assemble_stiffness, floor_masses
+from core.diagnostics import check_layout, check_stiffness
 from core.errors import AnalysisError
+from core.lateral import lateral_checks
 from core.modal import modal_analysis
 from core.model import Project
 from core.results import Results, frozen_array
@@ -13,8 +15,13 @@ def analyse(project: Project) -> Results:
     """Masses, stiffness and modes of ``project``; raises AnalysisError if it cannot stand."""
     if not project.levels:
         raise AnalysisError("the project has no levels: draw a floor outline first")
+    check_layout(project)
     floors = floor_masses(project)
     K = assemble_stiffness(project, floors)
+    check_stiffness(project, floors, K)
     M = assemble_mass(floors)
     modes = modal_analysis(K, M, floors)
-    return Results(floors=floors, stiffness=frozen_array(K), mass=frozen_array(M), modes=modes)
+    lateral = lateral_checks(project, floors, K, modes)
+    return Results(
+        floors=floors, stiffness=frozen_array(K), mass=frozen_array(M), modes=modes, lateral=lateral
+    )

@@ -19,7 +19,7 @@ from dataclasses import dataclass
 import numpy as np
 from scipy.linalg import cho_factor, cho_solve
 
-from core.assembly import element_matrix, line_vector
+from core.assembly import element_matrix
 from core.model import Element, Project
 from core.results import FloatArray, FloorMass
 
@@ -68,13 +68,17 @@ def storey_stiffnesses(
     project: Project, floors: tuple[FloorMass, ...], patterns: FloatArray
 ) -> tuple[StoreyStiffness, ...]:
     """Definition (a) for every storey. ``patterns`` is (2, N): the floor forces in x and in y."""
-    n = len(floors)
-    matrices = np.zeros((n, 3, 3))
+    centres = np.array([f.centre for f in floors], dtype=float)
+    matrices = np.zeros((len(floors), 3, 3))
     for element in project.elements:
         k = element_storey_stiffness(element_matrix(project, element), element_pattern(element, patterns))
-        for i, storey in enumerate(range(element.bottom + 1, element.top + 1)):
-            a = line_vector(element, floors[storey - 1])
-            matrices[storey - 1] += k[i] * np.outer(a, a)
+        spanned = slice(element.bottom, element.top)
+        c, s = element.direction
+        x, y = element.start
+        a = np.empty((element.storey_count, 3))
+        a[:, 0], a[:, 1] = c, s
+        a[:, 2] = s * (x - centres[spanned, 0]) - c * (y - centres[spanned, 1])  # design.md's a
+        matrices[spanned] += k[:, None, None] * a[:, :, None] * a[:, None, :]
     return tuple(_storey_properties(matrix) for matrix in matrices)
 
 

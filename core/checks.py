@@ -63,23 +63,26 @@ def point_displacements(
 ) -> FloatArray:
     """Rigid-floor displacement along ``direction`` at plan points.
 
-    ``displacements`` (N, 3) at the mass centres, ``centres`` (N, 2), ``points`` (N, P, 2):
-    u_x(p) = u_x − θ·(p_y − y_m), u_y(p) = u_y + θ·(p_x − x_m)."""
-    u, theta = displacements[:, :2], displacements[:, 2:3]
+    ``displacements`` (…, N, 3) at the mass centres (leading axes: cases), ``centres`` (N, 2),
+    ``points`` (N, P, 2); returns (…, N, P): u_x(p) = u_x − θ·(p_y − y_m),
+    u_y(p) = u_y + θ·(p_x − x_m)."""
+    theta = displacements[..., 2:3]
     if direction == "x":
-        return u[:, 0:1] - theta * (points[:, :, 1] - centres[:, 1:2])
-    return u[:, 1:2] + theta * (points[:, :, 0] - centres[:, 0:1])
+        return displacements[..., 0:1] - theta * (points[:, :, 1] - centres[:, 1:2])
+    return displacements[..., 1:2] + theta * (points[:, :, 0] - centres[:, 0:1])
 
 
 def storey_drifts(
     displacements: FloatArray, centres: FloatArray, points: FloatArray, direction: Direction
 ) -> FloatArray:
-    """(N, P) drift of storey j at the points of level j: its floor's motion there less that of
+    """(…, N, P) drift of storey j at the points of level j: its floor's motion there less that of
     the floor below at the same plan points (the base does not move)."""
     top = point_displacements(displacements, centres, points, direction)
     below = np.zeros_like(top)
-    if len(displacements) > 1:
-        below[1:] = point_displacements(displacements[:-1], centres[:-1], points[1:], direction)
+    if displacements.shape[-2] > 1:
+        below[..., 1:, :] = point_displacements(
+            displacements[..., :-1, :], centres[:-1], points[1:], direction
+        )
     return top - below
 
 
@@ -96,18 +99,21 @@ def extreme_points(project: Project, direction: Direction) -> FloatArray:
     return out
 
 
+def outline_vertices(project: Project) -> FloatArray:
+    """(N, P, 2) every level's outline vertices, padded by repeating the last one to a common P."""
+    rings = [np.asarray(level.outline, dtype=float) for level in project.levels]
+    count = max(len(r) for r in rings)
+    return np.stack([np.vstack([r, np.repeat(r[-1:], count - len(r), axis=0)]) for r in rings])
+
+
 def end_ratio(ends: FloatArray) -> FloatArray:
-    """max |δ| over |average δ| of the two ends, per row; inf if the average vanishes while an end
-    moves, 1 if neither end moves."""
-    largest = np.abs(ends).max(axis=1)
-    average = np.abs(ends.sum(axis=1)) / 2
-    ratio = np.ones(len(ends))
-    moving = largest > 0
-    with np.errstate(divide="ignore"):
-        ratio[moving] = np.where(
-            average[moving] > 1e-12 * largest[moving], largest[moving] / average[moving], math.inf
-        )
-    return ratio
+    """max |δ| over |average δ| of the two ends (last axis); inf if the average vanishes while an
+    end moves, 1 if neither end moves."""
+    largest = np.abs(ends).max(axis=-1)
+    average = np.abs(ends.sum(axis=-1)) / 2
+    with np.errstate(divide="ignore", invalid="ignore"):
+        ratio = np.where(average > 1e-12 * largest, largest / average, math.inf)
+    return np.where(largest > 0, ratio, 1.0)
 
 
 def amplification(end_displacements: FloatArray) -> FloatArray:
@@ -116,44 +122,52 @@ def amplification(end_displacements: FloatArray) -> FloatArray:
     return np.clip((ratio / TORSION_IRREGULAR) ** 2, 1.0, AMPLIFICATION_CAP)
 
 
-def case_result(
-    case: LoadCase,
+def case_results(
+    cases: Sequence[LoadCase],
     unit_displacements: FloatArray,
-    base_shear: float,
+    base_shears: FloatArray,
     unit_forces: FloatArray,
     offsets: FloatArray,
     centres: FloatArray,
-    ends: FloatArray,
-    vertices: Sequence[FloatArray],
-) -> CaseResult:
-    """The response to ``case`` from the response to its pattern scaled to a 1 kN base shear.
+    project: Project,
+) -> tuple[CaseResult, ...]:
+    """The response to each case from its response to the pattern scaled to a 1 kN base shear.
 
-    Ratios come from the unit response, so they stay defined when the base shear is zero."""
-    U = unit_displacements
-    d = case.direction
-    n = len(U)
-    end_drifts = storey_drifts(U, centres, ends, d)
-    end_disp = point_displacements(U, centres, ends, d)
-    drifts = storey_drifts(U, centres, centres[:, None, :], d)[:, 0]
-    corner = np.zeros(n)
-    for j in range(n):
-        points = np.broadcast_to(vertices[j], (n, *vertices[j].shape))
-        corner[j] = np.abs(storey_drifts(U, centres, points, d)[j]).max()
-    forces = case.sign * base_shear * unit_forces
-    return CaseResult(
-        case=case,
-        forces=frozen_array(forces),
-        application_points=frozen_array(centres + offsets),
-        displacements=frozen_array(base_shear * U),
-        storey_shears=frozen_array(forces[::-1].cumsum()[::-1]),
-        drifts=frozen_array(base_shear * drifts),
-        end_drifts=frozen_array(base_shear * end_drifts),
-        end_points=frozen_array(ends),
-        torsion_ratio=frozen_array(end_ratio(end_drifts)),
-        end_displacements=frozen_array(base_shear * end_disp),
-        amplification=frozen_array(amplification(end_disp)),
-        corner_drifts=frozen_array(base_shear * corner),
-    )
+    ``unit_displacements`` (C, N, 3), ``base_shears`` (C,), ``unit_forces`` (C, N) and
+    ``offsets`` (C, N, 2) per case. Ratios come from the unit response, so they stay defined
+    when a base shear is zero."""
+    vertices = outline_vertices(project)
+    out: list[CaseResult | None] = [None] * len(cases)
+    for d in ("x", "y"):
+        index = [i for i, c in enumerate(cases) if c.direction == d]
+        if not index:
+            continue
+        U = unit_displacements[index]
+        ends = extreme_points(project, d)
+        end_drifts = storey_drifts(U, centres, ends, d)
+        end_disp = point_displacements(U, centres, ends, d)
+        drifts = storey_drifts(U, centres, centres[:, None, :], d)[..., 0]
+        corner = np.abs(storey_drifts(U, centres, vertices, d)).max(axis=-1)
+        ratios = end_ratio(end_drifts)
+        amplified = amplification(end_disp)
+        for row, i in enumerate(index):
+            case, scale = cases[i], float(base_shears[i])
+            forces = case.sign * scale * unit_forces[i]
+            out[i] = CaseResult(
+                case=case,
+                forces=frozen_array(forces),
+                application_points=frozen_array(centres + offsets[i]),
+                displacements=frozen_array(scale * U[row]),
+                storey_shears=frozen_array(forces[::-1].cumsum()[::-1]),
+                drifts=frozen_array(scale * drifts[row]),
+                end_drifts=frozen_array(scale * end_drifts[row]),
+                end_points=frozen_array(ends),
+                torsion_ratio=frozen_array(ratios[row]),
+                end_displacements=frozen_array(scale * end_disp[row]),
+                amplification=frozen_array(amplified[row]),
+                corner_drifts=frozen_array(scale * corner[row]),
+            )
+    return tuple(r for r in out if r is not None)
 
 
 # --- drifts ------------------------------------------------------------------------------------
@@ -323,7 +337,11 @@ def _regularity(storeys: Sequence[StoreyLateral], en1998: bool) -> list[Verdict]
         for i, d in enumerate(DIRECTIONS):
             for ratio, (warn_at, fail_at), what in (
                 (s.stiffness_ratio_above[i], (SOFT_STOREY[0], EXTREME_SOFT_STOREY[0]), "storey above"),
-                (s.stiffness_ratio_average[i], (SOFT_STOREY[1], EXTREME_SOFT_STOREY[1]), "three storeys above"),
+                (
+                    s.stiffness_ratio_average[i],
+                    (SOFT_STOREY[1], EXTREME_SOFT_STOREY[1]),
+                    "three storeys above",
+                ),
             ):
                 if not math.isfinite(ratio):
                     continue

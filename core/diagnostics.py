@@ -31,9 +31,10 @@ PARALLEL_TOLERANCE = 1e-6
 CONCURRENT_TOLERANCE = 1e-6
 """Distance of a line from the common point, relative to the plan size, below which lines meet."""
 SINGULAR = 1e-12
-"""Smallest over largest eigenvalue of the diagonally scaled K at or below which K is singular."""
+"""Smallest over largest ω² at or below which K counts as singular."""
 ILL_CONDITIONED = 1e-9
-"""… and below which it is too nearly singular for the results to mean anything."""
+"""… and below which it is too nearly singular to mean anything: a period ratio above about
+3·10⁴ (our own bound; real buildings stay below 10³)."""
 
 
 def check_layout(project: Project) -> None:
@@ -49,26 +50,31 @@ def check_layout(project: Project) -> None:
 
 def check_stiffness(project: Project, floors: Sequence[FloorMass], K: FloatArray) -> None:
     """Raise AnalysisError if K is not finite, singular or ill-conditioned, saying which levels
-    move how in the (near) mechanism and which elements span the storeys that deform."""
+    move how in the (near) mechanism and which elements span the storeys that deform.
+
+    The measure is physical: ω² = eigenvalues of M^(-1/2) K M^(-1/2), so "ill-conditioned" means
+    a longest period absurdly long beside the shortest. Floors without mass are left to the modal
+    analysis, which names them."""
     if not np.all(np.isfinite(K)):
         raise AnalysisError("the lateral stiffness has non-finite entries: check the element properties")
-    diagonal = np.diag(K).copy()
-    if np.any(diagonal <= 0.0):
-        vector = np.zeros(len(diagonal))
-        vector[int(np.argmin(diagonal))] = 1.0
-        _raise_mechanism(project, floors, vector, "can move without any resistance")
-    scale = 1.0 / np.sqrt(diagonal)
-    scaled = K * scale[:, None] * scale[None, :]
-    values, vectors = eigh(scaled)
-    ratio = values[0] / values[-1]
+    mass = np.array([v for f in floors for v in (f.mass, f.mass, f.inertia)])
+    if np.any(mass <= 0.0):
+        return
+    scale = 1.0 / np.sqrt(mass)
+    values, vectors = eigh(K * scale[:, None] * scale[None, :])
+    largest = max(float(values[-1]), 1e-300)
+    ratio = float(values[0]) / largest
     if ratio <= SINGULAR:
         _raise_mechanism(project, floors, vectors[:, 0] * scale, "can move without any resistance")
     if ratio <= ILL_CONDITIONED:
+        longest = 2 * math.pi / math.sqrt(values[0])
+        shortest = 2 * math.pi / math.sqrt(largest)
         _raise_mechanism(
             project,
             floors,
             vectors[:, 0] * scale,
-            f"is almost unrestrained (stiffness ratio {ratio:.1e}; the results would be meaningless)",
+            f"is almost unrestrained (its longest period would be {longest:.3g} s beside a shortest of "
+            f"{shortest:.3g} s; the results would be meaningless)",
         )
 
 
@@ -89,15 +95,19 @@ def _zero_length(project: Project) -> None:
 
 
 def _outside_outline(project: Project) -> None:
-    polygons = [shapely.Polygon(level.outline) for level in project.levels]
+    regions = []
+    for level in project.levels:
+        polygon = shapely.Polygon(level.outline)
+        size = math.dist(*np.reshape(polygon.bounds, (2, 2)))
+        region = polygon.buffer(1e-6 * size + 1e-9)  # a line on the outline's edge is inside
+        shapely.prepare(region)
+        regions.append(region)
     bad: list[tuple[Element, int]] = []
     for element in project.elements:
         line = shapely.LineString([element.start, element.end])
-        first = max(element.bottom, 1)  # the floors it connects to: its bottom floor (if any) and those it spans
+        first = max(element.bottom, 1)  # the floors it connects: its bottom floor (if any) and those it spans
         for level in range(first, element.top + 1):
-            polygon = polygons[level - 1]
-            size = math.dist(*np.reshape(polygon.bounds, (2, 2)))
-            if line.distance(polygon) > 0.0 or not polygon.buffer(1e-6 * size + 1e-9).covers(line):
+            if not regions[level - 1].covers(line):
                 bad.append((element, level))
     if bad:
         parts = [f"{e.id} leaves the outline of level {project.levels[j - 1].name!r}" for e, j in bad]
@@ -131,7 +141,7 @@ def _storey_layout(project: Project, storey: int) -> None:
         normal = np.array([-s0, c0])
         offsets = np.array([normal @ np.asarray(e.start) for e in elements])
         collinear = np.ptp(offsets) <= CONCURRENT_TOLERANCE * size
-        turn = f" and, since they lie on one line, turn about it" if collinear else ""
+        turn = " and, since they lie on one line, turn about it" if collinear else ""
         raise AnalysisError(
             f"every element of {where} runs {_describe_direction(c0, s0)} ({names}): nothing resists "
             f"movement {_describe_direction(-s0, c0)}, so level {level.name!r}{above} can slide "
@@ -197,7 +207,9 @@ def _raise_mechanism(project: Project, floors: Sequence[FloorMass], vector: Floa
     )
 
 
-def _rigid_motion_at(motion: FloatArray, centre: tuple[float, float], point: tuple[float, float]) -> FloatArray:
+def _rigid_motion_at(
+    motion: FloatArray, centre: tuple[float, float], point: tuple[float, float]
+) -> FloatArray:
     """A floor's rigid motion (u_x, u_y, θ at ``centre``) expressed at ``point``."""
     ux, uy, theta = motion
     return np.array([ux - theta * (point[1] - centre[1]), uy + theta * (point[0] - centre[0]), theta])

@@ -215,7 +215,9 @@ class ElementDemand:
     """(storeys, braces per storey) largest |axial force| in each brace over the cases, kN;
     an empty (storeys, 0) array for elements without braces."""
     base_moment_envelope: float
-    """Largest |overturning moment| at the element's base over the cases, kN·m (0 if not a wall)."""
+    """Largest |overturning moment| at the element's base over the cases, kN·m: Σ F_k·z_k of the
+    floor forces it resists, z_k above its base (a wall's base bending moment; for a frame the
+    couple of its column and brace forces)."""
 
 
 @dataclass(frozen=True)

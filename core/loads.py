@@ -213,7 +213,8 @@ def static_load(
         coefficient = en1998_design(period, spectrum) * lam
         exponent = 1.0
         clause = (
-            f"EN 1998-1 §3.2.2.5 design spectrum type {spectrum.spectrum_type}, ground {spectrum.ground_type}; "
+            f"EN 1998-1 §3.2.2.5 design spectrum type {spectrum.spectrum_type}, "
+            f"ground {spectrum.ground_type}; "
             f"§4.3.3.2.2 F_b = S_d(T_1)·m·λ (λ = {lam:g}); §4.3.3.2.3 F_i ∝ z_i·m_i"
         )
     elif method is LoadMethod.ASCE7:

@@ -7,11 +7,15 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 from enum import StrEnum
+from typing import TYPE_CHECKING
 
 import numpy as np
 import numpy.typing as npt
 
 from core.model import Point
+
+if TYPE_CHECKING:
+    from core.lateral_results import LateralResults
 
 FloatArray = npt.NDArray[np.float64]
 
@@ -106,6 +110,8 @@ class Results:
     mass: FloatArray
     """Global mass matrix, diagonal (m, m, J) per floor."""
     modes: tuple[Mode, ...]
+    lateral: LateralResults
+    """Centres, radii, static load cases, torsion ratios, drifts, element demands and verdicts."""
 
     @property
     def total_mass(self) -> float:

@@ -12,12 +12,34 @@ JSON layout (``poise analyse FILE --json``), all values in kN, m, t, s, rad:
   energy shares [x, y, θ]), ``participation`` ([Γ_x, Γ_y, Γ_θ]), ``mass_ratio`` and
   ``cumulative`` ([x, y, θ] effective modal mass over the total), ``shape`` (per floor
   [u_x, u_y, θ] at the mass centre, mass-normalised).
+- ``lateral``: the lateral checks, fields named as in :mod:`core.lateral_results` (where every
+  field is documented): ``rule_set``, ``status`` (worst verdict: ``pass``, ``warn``, ``fail``),
+  ``drift_amplification``, ``drift_reduction``, ``drift_limit``, ``accidental_eccentricity``
+  (per floor [e for x loads, e for y loads], m); ``loads`` (x then y: ``direction``, ``method``,
+  ``modal_period``, ``period``, ``approximate_period_en1998``, ``approximate_period_asce7``,
+  ``period_cap_asce7``, ``coefficient``, ``base_shear``, ``distribution_exponent``,
+  ``storey_forces``, ``clause``); ``storeys`` (bottom up: centres of mass, of rigidity (a) and
+  no-twist (b), eccentricities, radii, the EN 1998-1 §4.2.3.2(6) ratios, worst torsion ratio,
+  A_x and drift ratios per direction [x, y], storey stiffness and regularity ratios);
+  ``cases`` (``name``, ``direction``, ``sign``, ``eccentricity_sign``, and per storey
+  ``forces``, ``storey_shears``, ``displacements``, ``drifts``, ``end_drifts``,
+  ``torsion_ratio``, ``amplification``, ``corner_drifts``); ``elements`` (``element``,
+  ``storeys``, ``shear_envelope``, ``share_envelope``, ``brace_force_envelope``,
+  ``base_moment_envelope``); ``mode_order``; ``verdicts`` (``name``, ``value``, ``limit``,
+  ``status``, ``clause``, ``storey``, ``direction``, ``note``). Numbers that are not finite
+  (an undefined centre, a ratio over a vanishing average) are ``null``.
 """
 
 from __future__ import annotations
 
+import dataclasses
+import math
+from enum import Enum
 from typing import Any
 
+import numpy as np
+
+from core.lateral_results import LateralResults, Status
 from core.model import Project
 from core.results import Results
 
@@ -61,6 +83,7 @@ def results_to_dict(project: Project, results: Results) -> dict[str, Any]:
             }
             for m in results.modes
         ],
+        "lateral": lateral_to_dict(results.lateral),
     }
 
 
@@ -89,5 +112,183 @@ def format_summary(project: Project, results: Results, mode_count: int = 12) -> 
     if len(results.modes) > mode_count:
         lines.append(f"… {len(results.modes) - mode_count} more modes (see --json)")
     lines.append("")
+    lines.extend(format_lateral(results.lateral))
+    lines.append("")
     lines.append(CAUTION)
     return "\n".join(lines)
+
+
+_CASE_FIELDS = (
+    "forces",
+    "storey_shears",
+    "displacements",
+    "drifts",
+    "end_drifts",
+    "torsion_ratio",
+    "amplification",
+    "corner_drifts",
+)
+_ELEMENT_FIELDS = ("element", "storeys", "shear_envelope", "share_envelope", "brace_force_envelope")
+
+
+def _plain(value: Any) -> Any:
+    """JSON-ready: dataclasses to dicts, arrays and tuples to lists, non-finite floats to None."""
+    if dataclasses.is_dataclass(value) and not isinstance(value, type):
+        return {f.name: _plain(getattr(value, f.name)) for f in dataclasses.fields(value)}
+    if isinstance(value, Enum):
+        return value.value
+    if isinstance(value, np.ndarray):
+        return _plain(value.tolist())
+    if isinstance(value, list | tuple):
+        return [_plain(v) for v in value]
+    if isinstance(value, float | np.floating):
+        return float(value) if math.isfinite(value) else None
+    if isinstance(value, np.integer):
+        return int(value)
+    return value
+
+
+def lateral_to_dict(lateral: LateralResults) -> dict[str, Any]:
+    """The ``lateral`` section of the JSON (layout in this module's docstring)."""
+    return {
+        "rule_set": lateral.rule_set,
+        "status": lateral.status.value,
+        "drift_amplification": lateral.drift_amplification,
+        "drift_reduction": lateral.drift_reduction,
+        "drift_limit": lateral.drift_limit,
+        "accidental_eccentricity": _plain(lateral.accidental_eccentricity),
+        "loads": _plain(lateral.loads),
+        "storeys": _plain(lateral.storeys),
+        "cases": [
+            {
+                "name": c.case.name,
+                "direction": c.case.direction,
+                "sign": c.case.sign,
+                "eccentricity_sign": c.case.eccentricity_sign,
+                **{name: _plain(getattr(c, name)) for name in _CASE_FIELDS},
+            }
+            for c in lateral.cases
+        ],
+        "elements": [
+            {
+                **{name: _plain(getattr(e, name)) for name in _ELEMENT_FIELDS},
+                "base_moment_envelope": _plain(e.base_moment_envelope),
+            }
+            for e in lateral.elements
+        ],
+        "mode_order": _plain(lateral.mode_order),
+        "verdicts": _plain(lateral.verdicts),
+    }
+
+
+def _num(value: float | None, width: int, digits: int = 2) -> str:
+    if value is None or not math.isfinite(value):
+        return f"{'–':>{width}}"
+    return f"{value:>{width}.{digits}f}"
+
+
+def _row(first: str, cells: list[tuple[float | None, int, int]]) -> str:
+    """A table row: a left-aligned label, then numbers (value, width, digits)."""
+    return f"{first:<10}" + "".join(_num(v, w, d) for v, w, d in cells)
+
+
+def _header(first: str, names: list[tuple[str, int]]) -> str:
+    return f"{first:<10}" + "".join(f"{name:>{w}}" for name, w in names)
+
+
+def format_lateral(lateral: LateralResults) -> list[str]:
+    """Text lines of the lateral checks: loads, centres and torsion per storey, element demands,
+    and every verdict that does not pass."""
+    lines = ["Static loads (equivalent lateral force)"]
+    lines.append(
+        _header(
+            "direction",
+            [
+                ("T modal", 9),
+                ("T used", 8),
+                ("T EN", 7),
+                ("T_a", 7),
+                ("C_u·T_a", 9),
+                ("V/W", 8),
+                ("V kN", 10),
+                ("k", 6),
+            ],
+        )
+    )
+    for load in lateral.loads:
+        cells = [
+            (load.modal_period, 9, 3),
+            (load.period, 8, 3),
+            (load.approximate_period_en1998, 7, 3),
+            (load.approximate_period_asce7, 7, 3),
+            (load.period_cap_asce7, 9, 3),
+            (load.coefficient, 8, 4),
+            (load.base_shear, 10, 1),
+            (load.distribution_exponent, 6, 2),
+        ]
+        lines.append(_row(load.direction, cells))
+        lines.append(f"    {load.clause}")
+    lines.append("")
+    lines.append(
+        "Centres per storey: mass, rigidity (a) from element storey stiffnesses, no-twist (b) from the "
+        "full stiffness under the static pattern"
+    )
+    names = ["x_m", "y_m", "x_r", "y_r", "x_nt", "y_nt", "r_x", "r_y", "l_s", "e0x/r_x", "e0y/r_y"]
+    lines.append(_header("storey", [(name, 8) for name in names]))
+    for s in reversed(lateral.storeys):
+        rc = s.rigidity_centre or (None, None)
+        nt = s.no_twist_centre or (None, None)
+        values = [*s.mass_centre, *rc, *nt, *s.torsional_radius, s.radius_of_gyration, *s.eccentricity_ratio]
+        lines.append(_row(s.name, [(v, 8, 2) for v in values]))
+    lines.append("")
+    lines.append(
+        "Torsion and drift per storey, worst case (torsion ratio per ASCE 7 Table 12.3-1; design drift = "
+        f"{lateral.drift_amplification:g} × elastic)"
+    )
+    names = [
+        "TR x",
+        "TR y",
+        "A_x x",
+        "A_x y",
+        "drift x",
+        "drift y",
+        "corner x",
+        "corner y",
+        "k_x/up",
+        "k_y/up",
+    ]
+    lines.append(_header("storey", [(name, 9) for name in names]))
+    for s in reversed(lateral.storeys):
+        cells = [(v, 9, 3) for v in (*s.torsion_ratio, *s.amplification)]
+        cells += [(v, 9, 5) for v in (*s.drift_ratio, *s.corner_drift_ratio)]
+        cells += [(v, 9, 2) for v in s.stiffness_ratio_above]
+        lines.append(_row(s.name, cells))
+    lines.append("")
+    lines.append("Element demands (envelope over the load cases, lowest storey spanned)")
+    lines.append(_header("element", [("V kN", 10), ("share", 8), ("brace N kN", 12), ("M base kN·m", 14)]))
+    for e in lateral.elements:
+        brace = float(e.brace_force_envelope[0].max()) if e.brace_force_envelope.size else None
+        cells = [
+            (float(e.shear_envelope[0]), 10, 1),
+            (float(e.share_envelope[0]), 8, 2),
+            (brace, 12, 1),
+            (e.base_moment_envelope, 14, 0),
+        ]
+        lines.append(_row(e.element, cells))
+    lines.append("")
+    failing = [v for v in lateral.verdicts if v.status is not Status.PASS]
+    lines.append(
+        f"Checks ({lateral.rule_set} rule set): {lateral.status.value}; "
+        f"{len(lateral.verdicts) - len(failing)} of {len(lateral.verdicts)} pass"
+    )
+    for v in failing:
+        where = ", ".join(
+            part
+            for part in (f"storey {v.storey}" if v.storey else "", f"in {v.direction}" if v.direction else "")
+            if part
+        )
+        label = f"{v.name} ({where})" if where else v.name
+        lines.append(
+            f"  {v.status.value.upper():<5}{label}: {v.value:.4g} vs {v.limit:g} — {v.clause}"
+        )
+    return lines

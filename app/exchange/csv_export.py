@@ -195,21 +195,21 @@ def verdicts_table(lateral: LateralResults) -> Table:
 
 
 def results_tables(results: Results) -> tuple[Table, ...]:
-    """Every results table, modal first, then the lateral checks when they were computed."""
-    tables = [floors_table(results), modes_table(results), mode_shapes_table(results)]
+    """Every results table: masses and modes, then the lateral checks."""
     lateral = results.lateral
-    if lateral is not None:
-        tables += [
-            storeys_table(lateral),
-            static_loads_table(lateral),
-            storey_forces_table(results, lateral),
-            load_cases_table(results, lateral),
-            element_envelopes_table(lateral),
-            element_shears_table(lateral),
-            brace_forces_table(lateral),
-            verdicts_table(lateral),
-        ]
-    return tuple(tables)
+    return (
+        floors_table(results),
+        modes_table(results),
+        mode_shapes_table(results),
+        storeys_table(lateral),
+        static_loads_table(lateral),
+        storey_forces_table(results, lateral),
+        load_cases_table(results, lateral),
+        element_envelopes_table(lateral),
+        element_shears_table(lateral),
+        brace_forces_table(lateral),
+        verdicts_table(lateral),
+    )
 
 
 def _text(cell: Cell) -> str:

@@ -105,7 +105,7 @@ def export_layout_dxf(
             _text(msp, element.id, at(element.midpoint), TEXT_HEIGHT * scale, labels,
                   TextEntityAlignment.BOTTOM_CENTER)
         if results is not None:
-            _centres(msp, project, results, level, scale)
+            _centres(msp, results, level, scale)
 
     try:
         doc.saveas(Path(path))
@@ -117,8 +117,9 @@ def _text(msp, text: str, point: tuple[float, float], height: float, layer: str,
     msp.add_text(text, height=height, dxfattribs={"layer": layer}).set_placement(point, align=align)
 
 
-def _centres(msp, project: Project, results: Results, level: int, scale: float) -> None:
-    """Mass centre (circle with a cross), rigidity centre (square) and the line between them."""
+def _centres(msp, results: Results, level: int, scale: float) -> None:
+    """Mass centre (circle with a cross), rigidity centre (a square on its corner with a smaller
+    square inside: the marks of core.mode_frames) and the line between them."""
     layer = layer_name(level, "CENTRES")
     labels = layer_name(level, "LABELS")
     r = SYMBOL_RADIUS * scale
@@ -127,11 +128,14 @@ def _centres(msp, project: Project, results: Results, level: int, scale: float) 
     msp.add_line((mx - r, my), (mx + r, my), dxfattribs={"layer": layer})
     msp.add_line((mx, my - r), (mx, my + r), dxfattribs={"layer": layer})
     _text(msp, "CM", (mx + 1.2 * r, my + 1.2 * r), TEXT_HEIGHT * scale, labels, TextEntityAlignment.BOTTOM_LEFT)
-    lateral = results.lateral
-    if lateral is None or lateral.storey(level).rigidity_centre is None:
+    centre = results.lateral.storey(level).rigidity_centre
+    if centre is None:
         return
-    rx, ry = (c * scale for c in lateral.storey(level).rigidity_centre)
-    msp.add_lwpolyline([(rx - r, ry - r), (rx + r, ry - r), (rx + r, ry + r), (rx - r, ry + r)], close=True,
+    rx, ry = (c * scale for c in centre)
+    q = 0.4 * r
+    msp.add_lwpolyline([(rx + r, ry), (rx, ry + r), (rx - r, ry), (rx, ry - r)], close=True,
+                       dxfattribs={"layer": layer})
+    msp.add_lwpolyline([(rx + q, ry + q), (rx - q, ry + q), (rx - q, ry - q), (rx + q, ry - q)], close=True,
                        dxfattribs={"layer": layer})
     msp.add_line((mx, my), (rx, ry), dxfattribs={"layer": layer})
     _text(msp, "CR", (rx + 1.2 * r, ry - 1.2 * r), TEXT_HEIGHT * scale, labels, TextEntityAlignment.TOP_LEFT)

@@ -11,6 +11,7 @@ Qt-free, so tests and the command line can use it.
 
 from __future__ import annotations
 
+import itertools
 from collections import Counter
 from collections.abc import Iterator
 from dataclasses import dataclass
@@ -24,7 +25,7 @@ from ezdxf.path import make_path
 from shapely.geometry import Polygon
 from shapely.geometry.polygon import orient
 
-from app.exchange.errors import ExchangeError, UnitsUnknown
+from app.exchange.errors import ExchangeError, MissingUnitsError
 from core.model import Ring
 from core.results import FloatArray, frozen_array
 
@@ -100,7 +101,7 @@ def guess_metres_per_unit(extent: float) -> float:
 def read_underlay(path: str | Path, metres_per_unit: float | None = None) -> Underlay:
     """Read ``path`` as an underlay; ``metres_per_unit`` overrides the header's unit.
 
-    Raises :class:`UnitsUnknown` when neither the header nor the caller gives the unit, and
+    Raises :class:`MissingUnitsError` when neither the header nor the caller gives the unit, and
     :class:`ExchangeError` when the file is missing, is not DXF, or has nothing to draw.
     """
     path = Path(path)
@@ -118,7 +119,7 @@ def read_underlay(path: str | Path, metres_per_unit: float | None = None) -> Und
 
     if factor == 0.0:
         extent = _model_extent(doc)
-        raise UnitsUnknown(
+        raise MissingUnitsError(
             f"{path.name}: the drawing does not say its units ($INSUNITS is unitless); choose them",
             guess_metres_per_unit(extent),
         )
@@ -142,7 +143,7 @@ def read_underlay(path: str | Path, metres_per_unit: float | None = None) -> Und
             continue
         for part in curve.sub_paths():
             points = [(float(v.x) * factor, float(v.y) * factor) for v in part.flattening(chord)]
-            for a, b in zip(points, points[1:], strict=False):
+            for a, b in itertools.pairwise(points):
                 if a != b:
                     segments.append((a, b))
                     layers.append(layer)
@@ -174,7 +175,7 @@ def _read_document(path: Path) -> ezdxf.document.Drawing:
         doc, _auditor = recover.readfile(path)
     except ezdxf.DXFStructureError as error:
         raise ExchangeError(f"{path.name}: not a readable DXF file ({error})") from error
-    except Exception as error:  # noqa: BLE001 - any parser failure on a foreign file is "unreadable"
+    except Exception as error:
         raise ExchangeError(f"{path.name}: not a readable DXF file ({type(error).__name__}: {error})") from error
     return doc
 

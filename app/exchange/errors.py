@@ -7,7 +7,7 @@ class ExchangeError(ValueError):
     """A drawing or export file that cannot be read or written; ``str(error)`` is one clear line."""
 
 
-class UnitsUnknown(ExchangeError):
+class MissingUnitsError(ExchangeError):
     """The drawing does not say its units ($INSUNITS unitless or unusual): the caller must ask.
 
     ``suggestion`` is a guess (metres per drawing unit) from the drawing's extent, for the question.

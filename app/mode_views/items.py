@@ -49,7 +49,7 @@ class FilledQuads(pg.GraphicsObject):
         signed_area = (x * np.roll(y, -1, axis=1) - np.roll(x, -1, axis=1) * y).sum(axis=1)
         quads = np.where((signed_area < 0)[:, None, None], quads[:, _REVERSED], quads)
         flat = quads.reshape(-1, 2)
-        connect = np.tile(np.array([0, 1, 1, 1, 1], dtype=np.int32), len(quads))
+        connect = np.tile(np.array([1, 1, 1, 1, 0], dtype=np.int32), len(quads))  # 1: joins the next
         path = pg.arrayToQPath(flat[:, 0], flat[:, 1], connect=connect, finiteCheck=False)
         path.setFillRule(Qt.FillRule.WindingFill)
         self.prepareGeometryChange()

@@ -107,19 +107,17 @@ class SheetContent:
     rule_set: str
     assumptions: tuple[str, ...]
     caution: str
+    rows_omitted: int = 0
+    """Storeys left out of the checks table because the page was full (all of them passing)."""
 
 
 def worst_torsion_level(results: Results) -> tuple[int, str]:
     """The level with the largest torsion ratio in either direction, and a phrase saying so.
 
-    An infinite ratio (the ends' average does not move) counts as the worst. Without lateral
-    results the top level is drawn.
+    An infinite ratio (the ends' average does not move) counts as the worst; of equal ratios the
+    lowest storey is taken.
     """
-    lateral = results.lateral
-    count = len(results.floors)
-    if lateral is None or not lateral.storeys:
-        return count, "top level"
-    best = max(lateral.storeys, key=lambda s: (max(s.torsion_ratio), -s.storey))
+    best = max(results.lateral.storeys, key=lambda s: (max(s.torsion_ratio), -s.storey))
     ratio = max(best.torsion_ratio)
     direction = DIRECTIONS[int(best.torsion_ratio[1] > best.torsion_ratio[0])]
     shown = "∞" if math.isinf(ratio) else f"{ratio:.2f}"
@@ -202,8 +200,10 @@ def number_text(value: float) -> str:
         return "∞" if value > 0 else "−∞"
     if math.isnan(value):
         return "–"
-    if value != 0 and (abs(value) < 0.01 or abs(value) >= 1000):
-        return f"{value:.2e}"
+    if abs(value) >= 1000:
+        return f"{value:,.0f}"
+    if value != 0 and abs(value) < 0.01:
+        return f"{value:.3g}"
     return f"{value:.3g}" if abs(value) >= 1 else f"{value:.3f}"
 
 
@@ -235,9 +235,10 @@ def _stiffness_text(project: Project) -> str:
     )
     if frames:
         parts.append("moment frames " + ", ".join(f"{f:g}" for f in frames) + " of gross")
-    if any(isinstance(e.properties, BracedFrame) for e in project.elements):
-        tension_only = any(isinstance(e.properties, BracedFrame) and e.properties.tension_only for e in project.elements)
-        parts.append("braced frames gross, " + ("some tension-only" if tension_only else "braces in tension and compression"))
+    braces = [e.properties for e in project.elements if isinstance(e.properties, BracedFrame)]
+    if braces:
+        tension_only = any(b.tension_only for b in braces)
+        parts.append("braced frames gross, " + ("some tension-only" if tension_only else "braces act both ways"))
     if any(e.kind is ElementKind.SPRING for e in project.elements):
         parts.append("springs as given")
     return "Stiffness factors: " + ("; ".join(parts) if parts else "no elements") + "."
@@ -266,12 +267,11 @@ def assumptions(project: Project, results: Results) -> tuple[str, ...]:
         "across the load, same sense on all floors (EN 1998-1 §4.3.2; ASCE 7 §12.8.4.2).",
     ]
     lateral = results.lateral
-    if lateral is not None:
-        lines.append(_loads_text(lateral))
-        lines.append(
-            f"Drift: elastic drift × {lateral.drift_amplification:g} × ν {lateral.drift_reduction:g} "
-            f"against {lateral.drift_limit:g} h. Rule set: {_rule_set_name(lateral.rule_set)}."
-        )
+    lines.append(_loads_text(lateral))
+    lines.append(
+        f"Design drift = {lateral.drift_amplification:g} × elastic drift; ν = {lateral.drift_reduction:g} "
+        f"times it is held to {lateral.drift_limit:g}·h. Rule set: {_rule_set_name(lateral.rule_set)}."
+    )
     return tuple(lines)
 
 
@@ -298,13 +298,8 @@ def sheet_content(
         if not 1 <= level <= count:
             raise ValueError(f"level {level} does not exist: the project has levels 1 to {count}")
         reason = "chosen level"
-    lateral = results.lateral
     names = {f.level: f.name for f in results.floors}
-    if lateral is not None:
-        columns, rows, building, clauses = checks_table(lateral, names)
-        rule_set = _rule_set_name(lateral.rule_set)
-    else:
-        columns, rows, building, clauses, rule_set = (), (), (), (), ""
+    columns, rows, building, clauses = checks_table(results.lateral, names)
     return SheetContent(
         title=TitleFields(
             project=project.name,
@@ -323,7 +318,7 @@ def sheet_content(
         rows=rows,
         building_checks=building,
         clauses=clauses,
-        rule_set=rule_set,
+        rule_set=_rule_set_name(results.lateral.rule_set),
         assumptions=assumptions(project, results),
         caution=CAUTION,
     )

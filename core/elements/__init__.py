@@ -11,7 +11,6 @@ its matrix. Length and heights enter the key rounded to 1 µm, so the rounding n
 
 from __future__ import annotations
 
-import math
 from collections.abc import Callable
 from functools import lru_cache
 from typing import Any
@@ -27,8 +26,8 @@ from core.results import FloatArray
 
 __all__ = ["ElementForces", "condensed_stiffness", "member_forces"]
 
-KEY_DIGITS = 6
-"""Length and storey heights are rounded to this many decimals of a metre (1 µm) for the cache."""
+KEY_SCALE = 1.0e6
+"""Length and storey heights are rounded to 1/KEY_SCALE m (1 µm) for the cache key."""
 
 
 def condensed_stiffness(
@@ -62,7 +61,11 @@ def member_forces(
         raise ModelError("displacements", f"needs {n} values (one per floor spanned), got shape {d.shape}")
     if not np.all(np.isfinite(d)):
         raise ModelError("displacements", "must be finite numbers")
-    return model.forces(d)
+    try:
+        with np.errstate(over="raise", invalid="raise"):
+            return model.forces(d)
+    except FloatingPointError as error:
+        raise ModelError("displacements", "too large to give finite forces; give them in m") from error
 
 
 _BUILDERS: dict[type, Callable[[Any, float, tuple[float, ...]], CondensedElement]] = {
@@ -79,19 +82,36 @@ def _model(
     """The cached condensed model, after checking the input and rounding the key."""
     if type(properties) not in _BUILDERS:
         raise ModelError("properties", f"not an element kind: {type(properties).__name__}")
+    length = _metres(length, "length")
     try:
-        length = round(float(length), KEY_DIGITS)
-        heights = tuple(round(float(h), KEY_DIGITS) for h in storey_heights)
-    except (TypeError, ValueError, OverflowError) as error:
-        raise ModelError("", "the length and the storey heights must be finite numbers") from error
-    if not (math.isfinite(length) and length > 0.0):
-        raise ModelError("length", f"the element line must be at least 1 µm long, got {length!r}")
-    if not heights:
-        raise ModelError("storey_heights", "an element must span at least one storey")
-    for i, h in enumerate(heights):
-        if not (math.isfinite(h) and h > 0.0):
-            raise ModelError(f"storey_heights[{i}]", f"must be a height of at least 1 µm, got {h!r}")
+        heights = tuple([round(h * KEY_SCALE) / KEY_SCALE for h in storey_heights])
+    except (TypeError, ValueError, OverflowError):
+        heights = ()  # the loop below names the culprit
+    if not heights or not min(heights) > 0.0:
+        heights = _checked_heights(storey_heights)
     return _condensed(properties, length, heights)
+
+
+def _checked_heights(storey_heights: tuple[float, ...]) -> tuple[float, ...]:
+    """The slow path for bad heights: ModelError naming the first bad one (or the whole)."""
+    try:
+        values = list(storey_heights)
+    except TypeError:
+        raise ModelError("storey_heights", f"must be a list of heights, got {storey_heights!r}") from None
+    if not values:
+        raise ModelError("storey_heights", "an element must span at least one storey")
+    return tuple(_metres(h, f"storey_heights[{i}]") for i, h in enumerate(values))
+
+
+def _metres(value: float, path: str) -> float:
+    """``value`` rounded to the key's 1 µm; ModelError at ``path`` unless it is a positive number."""
+    try:
+        rounded = round(value * KEY_SCALE) / KEY_SCALE
+    except (TypeError, ValueError, OverflowError):
+        raise ModelError(path, f"must be a finite number of metres, got {value!r}") from None
+    if not rounded > 0.0:
+        raise ModelError(path, f"must be at least 1 µm, got {value!r}")
+    return rounded
 
 
 @lru_cache(maxsize=4096)

@@ -75,7 +75,20 @@ class PlanarFrame:
         return len(self._members) - 1
 
     def condense(self, what: str) -> CondensedFrame:
-        """Assemble and condense; ``what`` names the element in the error of an unstable model."""
+        """Assemble and condense; ModelError if the model is unstable or its numbers degenerate.
+
+        ``what`` names the element in the message.
+        """
+        try:
+            with np.errstate(over="raise", invalid="raise", divide="raise"):
+                return self._condense()
+        except (LinAlgError, ValueError, FloatingPointError) as error:
+            raise ModelError(
+                "",
+                f"the planar model of this {what} is unstable or degenerate; check its sizes and sections",
+            ) from error
+
+    def _condense(self) -> CondensedFrame:
         n = self.floors
         floor = np.array(self._floor, dtype=np.intp)
         x = np.array(self._x)
@@ -119,7 +132,7 @@ class PlanarFrame:
         size = total + 1
         flat = (dofs[:, :, None] * size + dofs[:, None, :]).ravel()
         K = np.bincount(flat, weights=global_k.ravel(), minlength=size * size).reshape(size, size)
-        stiffness, recovery = _condense(K[:total, :total], n, what)
+        stiffness, recovery = _condense(K[:total, :total], n)
 
         lower_is_end = floor[end] < floor[start]
         return CondensedFrame(
@@ -179,19 +192,16 @@ def _release(local: FloatArray, hinges: npt.NDArray[np.bool_]) -> None:
             local[rows] = k - k[:, :, r, None] * k[:, None, r, :] / k[:, r, r, None, None]
 
 
-def _condense(K: FloatArray, n: int, what: str) -> tuple[FloatArray, FloatArray]:
-    """Condensed n × n stiffness and the recovery matrix d_i = R d_l of the internal DOFs."""
+def _condense(K: FloatArray, n: int) -> tuple[FloatArray, FloatArray]:
+    """Condensed n × n stiffness and the recovery matrix d_i = R d_l of the internal DOFs.
+
+    Cholesky factors both K_ii and the result, so a mechanism raises LinAlgError.
+    """
     K_ll, K_li, K_ii = K[:n, :n], K[:n, n:], K[n:, n:]
-    try:
-        internal = cho_solve(cho_factor(K_ii), K_li.T)
-        condensed = K_ll - K_li @ internal
-        condensed = 0.5 * (condensed + condensed.T)
-        cho_factor(condensed)  # positive definite, or the element cannot carry lateral load
-    except (LinAlgError, ValueError) as error:
-        raise ModelError(
-            "",
-            f"the planar model of this {what} is unstable or degenerate: check its dimensions and sections",
-        ) from error
+    internal = cho_solve(cho_factor(K_ii), K_li.T)
+    condensed = K_ll - K_li @ internal
+    condensed = 0.5 * (condensed + condensed.T)
+    cho_factor(condensed)
     return condensed, -internal
 
 

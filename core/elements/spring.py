@@ -40,4 +40,6 @@ def condense(spring: Spring, length: float, storey_heights: tuple[float, ...]) -
         )
     k = np.array(spring.storey_stiffness, dtype=float)
     K = np.diag(k + np.append(k[1:], 0.0)) - np.diag(k[1:], 1) - np.diag(k[1:], -1)
+    if not np.all(np.isfinite(K)):
+        raise ModelError("storey_stiffness", "values too large to add up; give them in kN/m")
     return SpringChain(frozen_array(K), frozen_array(k), frozen_array(storey_heights))

@@ -13,8 +13,9 @@ modelling, which the check is about:
 - each element works in its own plane only (Poise neglects out-of-plane stiffness): out-of-plane
   second moments, out-of-plane shear areas and torsion constants of members that would stiffen
   a floor out of plane or in twist are ``OUT_OF_PLANE`` times the in-plane value;
-- nodes whose in-plane rotation nothing resists (truss joints, beam ends hinged at a column) have
-  their rotations fixed; a wall's or moment frame's nodes keep theirs;
+- nodes whose in-plane rotation nothing resists (truss joints, and the column joints of chevron
+  beams, whose ends are released there with ``-releasey``) have their rotations fixed; the nodes
+  of walls, moment frames and chevron apexes keep theirs;
 - an element's base is fixed (at the ground) or, if it starts on a floor, moves with that floor's
   diaphragm and is fixed against vertical movement and rotation — the planar models' fixed base.
 """
@@ -60,8 +61,6 @@ class OpenSeesModes:
     periods: np.ndarray
     mass_ratios: np.ndarray
     """(modes, 3)."""
-    shapes: np.ndarray
-    """(modes, 3 × floors) eigenvectors [u_x, u_y, θ] at the master nodes, floor-major."""
 
 
 def floor_mass(level: Level) -> FloorMass:
@@ -116,7 +115,6 @@ class _Builder:
 
     def __init__(self, ops, project: Project, floors: list[FloorMass]) -> None:
         self.ops = ops
-        self.project = project
         self.elevations = (0.0, *project.elevations)
         self.tags = count(1)
         self.slaves: list[list[int]] = [[] for _ in self.elevations]
@@ -159,7 +157,7 @@ class _Builder:
 
     def frame_member(self, i: int, j: int, transf: int, E: float, A: float, I: float, *releases) -> None:
         """An Euler–Bernoulli member bending in the element's plane (about local y)."""
-        G = E / 2.0
+        G = E / 2.0  # enters only the (negligible) torsion
         tiny = OUT_OF_PLANE * I
         self.ops.element("elasticBeamColumn", next(self.tags), i, j, A, E, G, tiny, I, tiny, transf, *releases)
 
@@ -223,22 +221,10 @@ class _Builder:
         shear_area = wall.stiffness_factor * SHEAR_COEFFICIENT * t * L
         transf = self.transformation(element, vertical=True)
         nodes = [self.node(element, L / 2.0, f, False) for f in self.floors_of(element)]
+        # E G A J I_y I_z A_vy A_vz: in-plane bending about local y, in-plane shear along local z.
+        section = (E, G, t * L, OUT_OF_PLANE * I, I, OUT_OF_PLANE * I, OUT_OF_PLANE * shear_area, shear_area)
         for i, j in pairwise(nodes):
-            self.ops.element(
-                "ElasticTimoshenkoBeam",
-                next(self.tags),
-                i,
-                j,
-                E,
-                G,
-                t * L,
-                OUT_OF_PLANE * I,
-                I,
-                OUT_OF_PLANE * I,
-                OUT_OF_PLANE * shear_area,
-                shear_area,
-                transf,
-            )
+            self.ops.element("ElasticTimoshenkoBeam", next(self.tags), i, j, *section, transf)
 
     def diaphragms(self) -> None:
         for f, master in enumerate(self.masters, start=1):
@@ -268,4 +254,4 @@ def opensees_modes(project: Project, modes: int = 6) -> OpenSeesModes:
         ]
     )
     ops.wipe()
-    return OpenSeesModes(periods=2 * math.pi / np.sqrt(omega2), mass_ratios=mass_ratios(shapes, floors), shapes=shapes)
+    return OpenSeesModes(periods=2 * math.pi / np.sqrt(omega2), mass_ratios=mass_ratios(shapes, floors))

@@ -161,7 +161,7 @@ def test_floor_masses_match_an_independent_integration(make):
 @pytest.mark.parametrize("make", BUILDINGS.values(), ids=BUILDINGS.keys())
 def test_periods_and_mass_ratios_match_opensees(make):
     """Source: OpenSeesPy 3D model of the same members (module docstring); measured with
-    openseespy 3.7.1.2: periods agree to 1e-7 and mass ratios to 1e-7 on all three buildings."""
+    openseespy 3.7.1.2: periods agree within 7e-8 (relative) and mass ratios within 3e-8."""
     project = make()
     periods, ratios = poise_modes(project)
     reference = opensees_modes(project, MODES)
@@ -187,7 +187,8 @@ def _uncracked_wall(project: Project) -> Project:
 )
 def test_the_comparison_notices_a_different_model(make, alter):
     """The check can fail: OpenSees given a slightly different building (one frame 1 m to the west;
-    one wall without its cracking factor) must miss Poise's periods or mass ratios of the original."""
+    one wall without its cracking factor) must miss both Poise's periods and mass ratios of the
+    original. Measured: 3.6 % and 0.085 for the moved frame, 13 % and 0.12 for the wall."""
     project = make()
     periods, ratios = poise_modes(project)
     reference = opensees_modes(alter(project), MODES)

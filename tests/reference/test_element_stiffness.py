@@ -4,7 +4,10 @@
    floors made rigid with ``equalDOF`` on the lateral DOF, ``Truss`` braces and columns,
    ``elasticBeamColumn`` frame members (``-release`` for the chevron beams' pinned ends),
    ``ElasticTimoshenkoBeam`` walls. Its matrix is the inverse of the flexibility found by a unit
-   load at each floor in turn; ours must agree within 0.1 %. The member forces are compared too.
+   load at each floor in turn. The acceptance bound is 0.1 %; being the same model, the two agree
+   to rounding (about 1e-14), so the tests hold them to 1e-8: a modelling slip worth a fraction of
+   a per cent (a chevron beam made continuous over the columns moves K by 1e-4) cannot hide.
+   The member forces are compared too.
 2. Closed forms, each with its source named beside it.
 """
 
@@ -22,8 +25,8 @@ from core.elements import condensed_stiffness, member_forces
 from core.model import BracedFrame, BracePattern, MomentFrame, ShearWall, Spring
 from tests.reference.opensees_loader import load_opensees
 
-AGREEMENT = 1e-3
-"""0.1 %, relative to the largest entry of the reference matrix."""
+AGREEMENT = 1e-8
+"""Relative to the largest entry of the reference matrix (far inside the required 0.1 %)."""
 
 
 @pytest.fixture(scope="module")
@@ -228,6 +231,7 @@ OPENSEES_CASES = {
     ),
     "chevron 1 bay 1 storey": (BracedFrame(pattern=BracePattern.CHEVRON, beam_inertia=1e-4), 7.2, (3.6,)),
     "chevron 2 bays 4 storeys": (BracedFrame(pattern=BracePattern.CHEVRON, bays=2), 16.0, UNEQUAL),
+    "chevron 3 bays 4 storeys": (BracedFrame(pattern=BracePattern.CHEVRON, bays=3), 18.0, UNEQUAL),
     "wall 1 storey": (ShearWall(), 5.0, (3.5,)),
     "wall 4 storeys": (ShearWall(thickness=0.3, stiffness_factor=0.7), 6.5, UNEQUAL),
     "moment frame 2 bays 3 storeys": (MomentFrame(bays=2), 12.0, (4.2, 3.6, 3.6)),

@@ -1,0 +1,34 @@
+"""Colours and words of the mode views, on top of the shared palette in app.canvas.style."""
+
+from __future__ import annotations
+
+from PySide6.QtGui import QColor
+
+from core.results import Mode, ModeKind
+
+X_COLOUR = QColor("#2f6db5")
+Y_COLOUR = QColor("#d4881c")
+ROTATION_COLOUR = QColor("#8e3d8f")
+COMPONENT_COLOURS = (X_COLOUR, Y_COLOUR, ROTATION_COLOUR)
+
+UNDEFORMED = QColor(120, 116, 104, 90)
+"""The building at rest, drawn faint beneath the motion."""
+OTHER_FLOORS = QColor(70, 68, 62, 110)
+MOVING_FLOOR = QColor("#2b2a27")
+SELECTED_BAR = QColor("#2b2a27")
+CHART_BACKGROUND = QColor("#fbfaf7")
+TEXT = QColor("#2b2a27")
+
+KIND_WORDS = {
+    ModeKind.X: "x translation",
+    ModeKind.Y: "y translation",
+    ModeKind.TORSION: "torsion",
+    ModeKind.MIXED: "mixed",
+}
+
+
+def mode_caption(mode: Mode) -> str:
+    """One line that names a mode: number, period, what it does and its energy shares."""
+    x, y, r = (round(100 * s) for s in mode.shares)
+    return (f"Mode {mode.number} · T = {mode.period:.3f} s · {KIND_WORDS[mode.kind]} "
+            f"(energy x {x} %, y {y} %, θ {r} %)")

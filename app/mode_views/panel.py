@@ -1,0 +1,338 @@
+"""The mode-shape panel: animated plan, 3D view and modal charts, linked to the open document.
+
+The panel follows the document: a new analysis rebuilds the drawn geometry and keeps the
+animation running where it was (no new timer, no restart); selecting a mode anywhere
+(``document.mode_selected``) selects it in every view here; an unstable layout shows the
+diagnostic instead of the motion. The one animation clock stops while the panel is hidden.
+"""
+
+from __future__ import annotations
+
+from typing import Any
+
+from PySide6.QtCore import Qt
+from PySide6.QtGui import QAction, QHideEvent, QShowEvent
+from PySide6.QtWidgets import (
+    QComboBox,
+    QHBoxLayout,
+    QLabel,
+    QSizePolicy,
+    QSlider,
+    QSplitter,
+    QStackedWidget,
+    QToolButton,
+    QVBoxLayout,
+    QWidget,
+)
+
+from app.canvas.style import DIAGNOSTIC, KIND_COLOURS, KIND_LABELS, MASS_CENTRE, RIGIDITY_CENTRE
+from app.mode_views.building_view import BuildingMotionView
+from app.mode_views.charts import MassRatioChart, PeriodChart, ShapeChart
+from app.mode_views.clock import DEFAULT_CYCLE_SECONDS, ModeClock
+from app.mode_views.palette import mode_caption
+from app.mode_views.plan_view import PlanMotionView
+from core.mode_frames import BuildingGeometry, building_geometry, peak_scale
+from core.model import Point, Project
+from core.results import Results
+
+DEFAULT_AMPLITUDE_PERCENT = 8
+"""Peak drawn motion as a share of the plan size (mode shapes have no absolute size)."""
+PACE_STEPS_PER_SECOND = 10
+CAUTION = ("Rigid floors; elements resist in their own plane only. Concept-stage estimate: verify with a full "
+           "analysis, follow the local code and defer to licensed practice.")
+
+
+def rigidity_centres(results: Results) -> list[Point | None]:
+    """Centre of rigidity (storey stiffness definition) of the storey below each floor, if known."""
+    return [storey.rigidity_centre for storey in results.lateral.storeys]
+
+
+def _key_html() -> str:
+    def swatch(colour: Any, text: str) -> str:
+        return f"<span style='color:{colour.name()}'>&#9632;</span>&nbsp;{text}"
+
+    parts = [
+        f"<span style='color:{MASS_CENTRE.name()}'>&#8853;</span>&nbsp;centre of mass",
+        f"<span style='color:{RIGIDITY_CENTRE.name()}'>&#9671;</span>&nbsp;centre of rigidity",
+        *(swatch(KIND_COLOURS[kind], KIND_LABELS[kind].lower()) for kind in KIND_COLOURS),
+        "<span style='color:#8a8578'>&#9633;</span>&nbsp;at rest",
+    ]
+    return " &nbsp; ".join(parts)
+
+
+class ModeViewsPanel(QWidget):
+    """Animated mode shapes (plan and 3D) and the period, mass and shape charts of one document."""
+
+    def __init__(self, document: Any, parent: QWidget | None = None) -> None:
+        super().__init__(parent)
+        self.setObjectName("modeViewsPanel")
+        self.document = document
+        self.clock = ModeClock(self)
+        self.plan = PlanMotionView()
+        self.building = BuildingMotionView()
+        self.periods = PeriodChart()
+        self.masses = MassRatioChart()
+        self.shape = ShapeChart()
+        self.mode_number = max(1, document.current_mode)
+        self.floor_index = max(0, document.current_level - 1)
+        self._geometry: BuildingGeometry | None = None
+        self._results: Results | None = None
+        self._project: Project | None = None
+        self._shown = False
+        self._build_controls()
+        self._build_layout()
+        self._connect()
+        self.refresh()
+
+    # ------------------------------------------------------------------ construction
+
+    def _build_controls(self) -> None:
+        self.mode_box = QComboBox()
+        self.mode_box.setObjectName("modeChoice")
+        self.mode_box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToContents)
+        self.play_action = QAction("Play", self)
+        self.play_action.setCheckable(True)
+        self.play_action.setToolTip("Play or pause the motion")
+        self.step_action = QAction("Step", self)
+        self.step_action.setToolTip("Pause and move on by a sixteenth of a cycle")
+        self.play_button = QToolButton()
+        self.play_button.setDefaultAction(self.play_action)
+        self.step_button = QToolButton()
+        self.step_button.setDefaultAction(self.step_action)
+        self.pace_slider = QSlider(Qt.Orientation.Horizontal)
+        self.pace_slider.setObjectName("paceSlider")
+        self.pace_slider.setRange(5, 60)  # tenths of a second per cycle
+        self.pace_slider.setValue(round(DEFAULT_CYCLE_SECONDS * PACE_STEPS_PER_SECOND))
+        self.pace_slider.setFixedWidth(90)
+        self.pace_label = QLabel()
+        self.amplitude_slider = QSlider(Qt.Orientation.Horizontal)
+        self.amplitude_slider.setObjectName("amplitudeSlider")
+        self.amplitude_slider.setRange(1, 40)
+        self.amplitude_slider.setValue(DEFAULT_AMPLITUDE_PERCENT)
+        self.amplitude_slider.setFixedWidth(90)
+        self.amplitude_label = QLabel()
+        self.floor_box = QComboBox()
+        self.floor_box.setObjectName("floorChoice")
+        self.floor_box.setToolTip("The floor drawn bold, with its elements and centres, in the plan")
+
+    def _build_layout(self) -> None:
+        controls = QHBoxLayout()
+        controls.setContentsMargins(4, 2, 4, 2)
+        groups = (
+            (QLabel("Mode"), self.mode_box, self.play_button, self.step_button),
+            (QLabel("Pace"), self.pace_slider, self.pace_label),
+            (QLabel("Amplitude"), self.amplitude_slider, self.amplitude_label),
+            (QLabel("Plan floor"), self.floor_box),
+        )
+        for group in groups:
+            for widget in group:
+                controls.addWidget(widget)
+            controls.addSpacing(14)
+        controls.addStretch(1)
+
+        views = QSplitter(Qt.Orientation.Horizontal)
+        views.addWidget(self.plan)
+        views.addWidget(self.building)
+        charts = QSplitter(Qt.Orientation.Horizontal)
+        for chart in (self.periods, self.masses, self.shape):
+            charts.addWidget(chart)
+        body = QSplitter(Qt.Orientation.Vertical)
+        body.addWidget(views)
+        body.addWidget(charts)
+        body.setStretchFactor(0, 3)
+        body.setStretchFactor(1, 2)
+        self.diagnostic = QLabel()
+        self.diagnostic.setObjectName("modeDiagnostic")
+        self.diagnostic.setWordWrap(True)
+        self.diagnostic.setAlignment(Qt.AlignmentFlag.AlignCenter)
+        self.diagnostic.setStyleSheet(f"color: {DIAGNOSTIC.name()}; font-size: 11pt; padding: 24px;")
+        self.stack = QStackedWidget()
+        self.stack.addWidget(body)
+        self.stack.addWidget(self.diagnostic)
+        self.stack.setSizePolicy(QSizePolicy.Policy.Expanding, QSizePolicy.Policy.Expanding)
+
+        key = QLabel(_key_html())
+        key.setTextFormat(Qt.TextFormat.RichText)
+        caution = QLabel(CAUTION)
+        caution.setObjectName("modeCaution")
+        caution.setWordWrap(True)
+        caution.setStyleSheet("color: #6b675c; font-size: 8pt;")
+        layout = QVBoxLayout(self)
+        layout.setContentsMargins(0, 0, 0, 0)
+        layout.setSpacing(2)
+        layout.addLayout(controls)
+        layout.addWidget(self.stack, 1)
+        layout.addWidget(key)
+        layout.addWidget(caution)
+
+    def _connect(self) -> None:
+        document = self.document
+        document.results_changed.connect(self.refresh)
+        document.mode_selected.connect(self.select_mode)
+        document.current_level_changed.connect(self._follow_level)
+        self.clock.phase_changed.connect(self._draw_frame)
+        self.clock.playing_changed.connect(self._show_playing)
+        self.play_action.toggled.connect(self._play_toggled)
+        self.step_action.triggered.connect(self._step)
+        self.pace_slider.valueChanged.connect(self._pace_changed)
+        self.amplitude_slider.valueChanged.connect(self._amplitude_changed)
+        self.mode_box.activated.connect(self._mode_chosen)
+        self.floor_box.activated.connect(self._floor_chosen)
+        self.periods.mode_clicked.connect(self._ask_for_mode)
+        self.masses.mode_clicked.connect(self._ask_for_mode)
+        self._pace_changed(self.pace_slider.value())
+
+    # ------------------------------------------------------------------ following the document
+
+    def refresh(self) -> None:
+        """Rebuild from the document's latest results; the animation carries on from its phase."""
+        results, project = self.document.results, self.document.analysed_project
+        if results is None or project is None or not results.modes:
+            self._results = self._project = self._geometry = None
+            error = self.document.error
+            message = error.message if error is not None else "The analysis has not run yet."
+            self.diagnostic.setText(f"No mode shapes to show.\n\n{message}")
+            self.stack.setCurrentIndex(1)
+            self.plan.clear_mode()
+            self.building.clear_mode()
+            for chart in (self.periods, self.masses, self.shape):
+                chart.clear_results()
+            self._update_ticking()
+            return
+        self._results, self._project = results, project
+        self._geometry = building_geometry(project, results.floors, rigidity_centres(results))
+        self.mode_number = min(max(1, self.mode_number), len(results.modes))
+        self.floor_index = min(self.floor_index, len(results.floors) - 1)
+        self._fill_choices()
+        self.stack.setCurrentIndex(0)
+        self.periods.show_results(results, self.mode_number)
+        self.masses.show_results(results, self.mode_number)
+        self._show_motion()
+        self._update_ticking()
+
+    def select_mode(self, number: int) -> None:
+        """Show mode ``number`` (1-based) in every view."""
+        self.mode_number = int(number)
+        if self._results is None:
+            return
+        self.mode_number = min(max(1, self.mode_number), len(self._results.modes))
+        self.mode_box.setCurrentIndex(self.mode_number - 1)
+        self.periods.select_mode(self.mode_number)
+        self.masses.select_mode(self.mode_number)
+        self._show_motion()
+
+    def _follow_level(self, level: int) -> None:
+        self.set_floor(level - 1)
+
+    def set_floor(self, index: int) -> None:
+        """Emphasise 0-based floor ``index`` in the plan."""
+        self.floor_index = max(0, index)
+        if self._results is None:
+            return
+        self.floor_index = min(self.floor_index, len(self._results.floors) - 1)
+        self.floor_box.setCurrentIndex(self.floor_index)
+        self._show_motion()
+
+    def _fill_choices(self) -> None:
+        assert self._results is not None
+        captions = [mode_caption(m) for m in self._results.modes]
+        if [self.mode_box.itemText(i) for i in range(self.mode_box.count())] != captions:
+            self.mode_box.blockSignals(True)
+            self.mode_box.clear()
+            self.mode_box.addItems(captions)
+            self.mode_box.blockSignals(False)
+        self.mode_box.setCurrentIndex(self.mode_number - 1)
+        names = [f.name for f in self._results.floors]
+        if [self.floor_box.itemText(i) for i in range(self.floor_box.count())] != names:
+            self.floor_box.blockSignals(True)
+            self.floor_box.clear()
+            self.floor_box.addItems(names)
+            self.floor_box.blockSignals(False)
+        self.floor_box.setCurrentIndex(self.floor_index)
+
+    def _show_motion(self) -> None:
+        results, geometry = self._results, self._geometry
+        if results is None or geometry is None:
+            return
+        mode = results.modes[self.mode_number - 1]
+        peak = self.amplitude_slider.value() / 100 * geometry.plan_size
+        scale = peak_scale(geometry, results.floors, mode, peak)
+        phase = self.clock.phase
+        self.plan.show_mode(geometry, results.floors, mode, scale, peak, self.floor_index, phase)
+        self.building.show_mode(geometry, results.floors, mode, scale, peak, phase)
+        self.shape.show_mode(results, self.mode_number)
+        self.amplitude_label.setText(f"{self.amplitude_slider.value()} % of plan = {peak:.2f} m peak")
+        self._pace_changed(self.pace_slider.value())
+        self.setToolTip(mode_caption(mode))
+
+    # ------------------------------------------------------------------ controls
+
+    def _ask_for_mode(self, number: int) -> None:
+        """A view asked for a mode: let the document broadcast it, so its tables follow too."""
+        self.document.select_mode(number)
+
+    def _mode_chosen(self, index: int) -> None:
+        self._ask_for_mode(index + 1)
+
+    def _floor_chosen(self, index: int) -> None:
+        self.set_floor(index)
+
+    def _play_toggled(self, on: bool) -> None:
+        if on:
+            self.clock.play()
+        else:
+            self.clock.pause()
+
+    def _show_playing(self, playing: bool) -> None:
+        self.play_action.blockSignals(True)
+        self.play_action.setChecked(playing)
+        self.play_action.setText("Pause" if playing else "Play")
+        self.play_action.blockSignals(False)
+
+    def _step(self) -> None:
+        self.clock.step()
+
+    def _pace_changed(self, value: int) -> None:
+        seconds = value / PACE_STEPS_PER_SECOND
+        self.clock.set_cycle_seconds(seconds)
+        text = f"{seconds:.1f} s per cycle"
+        if self._results is not None:
+            text += f" (real T = {self._results.modes[self.mode_number - 1].period:.2f} s)"
+        self.pace_label.setText(text)
+
+    def _amplitude_changed(self, _value: int) -> None:
+        self._show_motion()
+
+    def _draw_frame(self, phase: float) -> None:
+        if self._results is None:
+            return
+        self.plan.set_phase(phase)
+        self.building.set_phase(phase)
+
+    # ------------------------------------------------------------------ visibility
+
+    def _update_ticking(self) -> None:
+        if self._shown and self._results is not None:
+            self.clock.resume()
+        else:
+            self.clock.suspend()
+
+    def showEvent(self, event: QShowEvent) -> None:
+        super().showEvent(event)
+        self._shown = True
+        self._update_ticking()
+
+    def hideEvent(self, event: QHideEvent) -> None:
+        super().hideEvent(event)
+        self._shown = False
+        self._update_ticking()
+
+
+def install(window: Any) -> ModeViewsPanel:
+    """Add the mode-shape panel to the main window, following ``window.document``."""
+    panel = ModeViewsPanel(window.document)
+    window.add_panel(panel, "Mode shapes", "modeShapesPanel", Qt.DockWidgetArea.BottomDockWidgetArea)
+    menu = window.menu("Modes")
+    menu.addAction(panel.play_action)
+    menu.addAction(panel.step_action)
+    return panel

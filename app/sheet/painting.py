@@ -1,0 +1,201 @@
+"""Drawing kit of the sheet: millimetres and points on any paint device, text and tables.
+
+The sheet is laid out in millimetres and fonts are set in points, so it looks the same on a
+300 dpi PDF, a printer at its own resolution and a preview image. ``Paper`` converts; the
+device's logical resolution says how many device units a millimetre is.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from dataclasses import dataclass
+
+from PySide6.QtCore import QPointF, QRectF, Qt
+from PySide6.QtGui import QBrush, QColor, QFont, QPainter, QPen
+
+from core.lateral_results import Status
+
+FONT_FAMILIES = ["DejaVu Sans", "Liberation Sans", "Arial", "Helvetica"]
+
+INK = QColor("#1d232a")
+MUTED = QColor("#5f6b76")
+RULE = QColor("#9aa5b1")
+PAPER_TINT = QColor("#f3f5f7")
+
+STATUS_COLOURS: dict[Status, tuple[QColor, QColor]] = {
+    Status.PASS: (QColor("#e2f0e5"), QColor("#1e6b34")),
+    Status.WARN: (QColor("#fdf0c8"), QColor("#7a5200")),
+    Status.FAIL: (QColor("#f8d9d9"), QColor("#a11b1b")),
+}
+"""Cell tint and text colour per verdict; the word is always printed too, for grey printers."""
+
+ALIGN_LEFT = Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter
+ALIGN_RIGHT = Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter
+ALIGN_CENTRE = Qt.AlignmentFlag.AlignCenter
+WRAP = Qt.TextFlag.TextWordWrap
+
+
+class Paper:
+    """Millimetre geometry, point-size fonts and pens for one painter."""
+
+    def __init__(self, painter: QPainter, font_scale: float = 1.0) -> None:
+        self.painter = painter
+        device = painter.device()
+        self.units_per_mm = device.logicalDpiX() / 25.4
+        self.font_scale = font_scale
+
+    def mm(self, value: float) -> float:
+        return value * self.units_per_mm
+
+    def to_mm(self, value: float) -> float:
+        return value / self.units_per_mm
+
+    def rect(self, x: float, y: float, w: float, h: float) -> QRectF:
+        """A rectangle given in mm from the device origin."""
+        return QRectF(self.mm(x), self.mm(y), self.mm(w), self.mm(h))
+
+    def font(
+        self, points: float, bold: bool = False, italic: bool = False, scaled: bool = True, narrow: bool = False
+    ) -> QFont:
+        """A sheet font of ``points`` (times the sheet's font scale if ``scaled``); ``narrow`` picks
+        the semi-condensed face, for table cells."""
+        font = QFont()
+        font.setFamilies(FONT_FAMILIES)
+        font.setPointSizeF(points * (self.font_scale if scaled else 1.0))
+        font.setBold(bold)
+        font.setItalic(italic)
+        if narrow:
+            font.setStretch(QFont.Stretch.SemiCondensed)
+        return font
+
+    def pen(self, colour: QColor, width_mm: float, style: Qt.PenStyle = Qt.PenStyle.SolidLine) -> QPen:
+        pen = QPen(colour, self.mm(width_mm), style)
+        pen.setCapStyle(Qt.PenCapStyle.FlatCap)
+        pen.setJoinStyle(Qt.PenJoinStyle.MiterJoin)
+        return pen
+
+    def line_height(self, font: QFont) -> float:
+        """Height of one line of ``font`` in device units."""
+        self.painter.setFont(font)
+        return self.painter.fontMetrics().height() * 1.0
+
+    def text_width(self, text: str, font: QFont) -> float:
+        self.painter.setFont(font)
+        return self.painter.fontMetrics().horizontalAdvance(text) * 1.0
+
+    def text_height(self, text: str, font: QFont, width: float) -> float:
+        """Height of ``text`` wrapped to ``width`` device units."""
+        self.painter.setFont(font)
+        bound = self.painter.boundingRect(QRectF(0, 0, width, 1e6), int(ALIGN_LEFT | WRAP), text)
+        return bound.height()
+
+    def text(
+        self,
+        rect: QRectF,
+        text: str,
+        font: QFont,
+        colour: QColor = INK,
+        flags: Qt.AlignmentFlag | int = ALIGN_LEFT,
+    ) -> QRectF:
+        """Draw ``text`` in ``rect``; returns the rectangle the text took."""
+        self.painter.setFont(font)
+        self.painter.setPen(QPen(colour))
+        return self.painter.drawText(rect, int(flags), text)
+
+    def fill(self, rect: QRectF, colour: QColor) -> None:
+        self.painter.fillRect(rect, QBrush(colour))
+
+    def frame(self, rect: QRectF, colour: QColor = RULE, width_mm: float = 0.2) -> None:
+        self.painter.setPen(self.pen(colour, width_mm))
+        self.painter.setBrush(Qt.BrushStyle.NoBrush)
+        self.painter.drawRect(rect)
+
+    def hline(self, x0: float, x1: float, y: float, colour: QColor = RULE, width_mm: float = 0.15) -> None:
+        self.painter.setPen(self.pen(colour, width_mm))
+        self.painter.drawLine(QPointF(x0, y), QPointF(x1, y))
+
+
+@dataclass(frozen=True)
+class Column:
+    """A table column: its header text, width share and alignment."""
+
+    header: str
+    width: float
+    """Relative width (columns are scaled to fill the table)."""
+    align: Qt.AlignmentFlag = ALIGN_RIGHT
+
+
+@dataclass(frozen=True)
+class Cell:
+    text: str
+    status: Status | None = None
+    bold: bool = False
+
+
+class TableLayout:
+    """A table measured for a width, so its height is known before it is drawn."""
+
+    def __init__(
+        self,
+        paper: Paper,
+        width: float,
+        columns: Sequence[Column],
+        rows: Sequence[Sequence[Cell | str]],
+        points: float = 6.5,
+        unit_mm: float | None = None,
+    ) -> None:
+        """``unit_mm`` caps the width of one unit of ``Column.width``, so a table of few columns
+        stays compact instead of stretching across the page."""
+        self.paper = paper
+        self.columns = list(columns)
+        self.rows = [[c if isinstance(c, Cell) else Cell(c) for c in row] for row in rows]
+        total = sum(c.width for c in columns)
+        if unit_mm is not None:
+            width = min(width, paper.mm(unit_mm) * total)
+        self.widths = [width * c.width / total for c in columns]
+        self.width = width
+        self.body_font = paper.font(points, narrow=True)
+        self.bold_font = paper.font(points, bold=True, narrow=True)
+        self.header_font = paper.font(points - 0.5, bold=True, narrow=True)
+        self.pad = paper.mm(0.8)
+        self.row_height = paper.line_height(self.body_font) * 1.3
+        self.header_height = (
+            max(
+                paper.text_height(c.header, self.header_font, w - 2 * self.pad)
+                for c, w in zip(self.columns, self.widths, strict=True)
+            )
+            + 2 * self.pad
+        )
+
+    @property
+    def height(self) -> float:
+        return self.header_height + self.row_height * len(self.rows)
+
+    def draw(self, x: float, y: float) -> float:
+        """Draw with the top left at (x, y) device units; returns the y below the table."""
+        paper = self.paper
+        paper.fill(QRectF(x, y, self.width, self.header_height), PAPER_TINT)
+        left = x
+        for column, w in zip(self.columns, self.widths, strict=True):
+            cell = QRectF(left + self.pad, y + self.pad, w - 2 * self.pad, self.header_height - 2 * self.pad)
+            flags = (column.align & ~Qt.AlignmentFlag.AlignVCenter) | Qt.AlignmentFlag.AlignBottom
+            paper.text(cell, column.header, self.header_font, INK, flags | WRAP)
+            left += w
+        top = y + self.header_height
+        paper.hline(x, x + self.width, top, INK, 0.25)
+        for index, row in enumerate(self.rows):
+            left = x
+            for column, w, cell in zip(self.columns, self.widths, row, strict=True):
+                box = QRectF(left, top, w, self.row_height)
+                colour = INK
+                if cell.status is not None:
+                    tint, colour = STATUS_COLOURS[cell.status]
+                    paper.fill(box.adjusted(paper.mm(0.15), paper.mm(0.15), -paper.mm(0.15), -paper.mm(0.15)), tint)
+                font = self.bold_font if cell.bold else self.body_font
+                paper.text(box.adjusted(self.pad, 0, -self.pad, 0), cell.text, font, colour, column.align)
+                left += w
+            top += self.row_height
+            if index < len(self.rows) - 1:
+                paper.hline(x, x + self.width, top, RULE, 0.1)
+        paper.hline(x, x + self.width, top, INK, 0.25)
+        return top

@@ -1,0 +1,257 @@
+"""The lateral checks of one project state: ``lateral_checks(project, floors, K, modes)``.
+
+Order: static loads per direction from the modal periods → the load cases (all solved with one
+Cholesky factorisation of K) → centres and radii per storey → torsion ratios, drifts, element
+demands, regularity → the rule set's verdicts. Everything is linear, so each case is solved for
+its pattern scaled to a 1 kN base shear and then scaled by the base shear.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from functools import lru_cache
+
+import numpy as np
+from scipy.linalg import cho_factor, cho_solve
+
+from core.assembly import element_matrix, element_storey_heights, element_transformation
+from core.centres import StoreyStiffness, no_twist_offsets, storey_stiffnesses
+from core.checks import (
+    case_results,
+    design_drift_ratios,
+    drift_amplification,
+    drift_reduction,
+    element_shares,
+    floor_arrays,
+    judge,
+    mass_ratios,
+    mode_order,
+    stiffness_ratios,
+    storey_drifts,
+)
+from core.elements import member_forces
+from core.lateral_results import (
+    DIRECTIONS,
+    CaseResult,
+    ElementDemand,
+    LateralResults,
+    StoreyLateral,
+)
+from core.loads import (
+    accidental_eccentricities,
+    case_load_vector,
+    load_cases,
+    static_load,
+    vertical_distribution,
+)
+from core.model import BracedFrame, Element, Project
+from core.results import FloatArray, FloorMass, Mode, frozen_array
+
+
+def lateral_checks(
+    project: Project, floors: tuple[FloorMass, ...], K: FloatArray, modes: Sequence[Mode]
+) -> LateralResults:
+    """Centres, radii, static load cases, torsion ratios, drifts, element demands, regularity and
+    verdicts. ``K`` must have passed :func:`core.diagnostics.check_stiffness`."""
+    settings = project.settings
+    n = len(floors)
+    masses, centres = floor_arrays(floors)
+    elevations = np.array([f.elevation for f in floors])
+    heights = np.array([level.height for level in project.levels])
+
+    loads = tuple(static_load(d, settings, floors, _modal_period(modes, i)) for i, d in enumerate(DIRECTIONS))
+    patterns = np.stack(
+        [vertical_distribution(1.0, masses, elevations, ld.distribution_exponent) for ld in loads]
+    )
+    eccentricity = accidental_eccentricities(project, settings.accidental_eccentricity)
+
+    # Every case (the centred ones too: they give the storey stiffnesses), one factorisation.
+    all_cases = load_cases(include_centred=True)
+    axis = [DIRECTIONS.index(c.direction) for c in all_cases]
+    vectors, offsets = zip(
+        *(case_load_vector(c, patterns[a], eccentricity) for c, a in zip(all_cases, axis, strict=True)),
+        strict=True,
+    )
+    unit = cho_solve(cho_factor(K), np.column_stack(vectors))  # (3N, cases), 1 kN base shear each
+    unit_cases = unit.T.reshape(len(all_cases), n, 3)
+    results = case_results(
+        all_cases,
+        unit_cases,
+        np.array([loads[a].base_shear for a in axis]),
+        patterns[axis],
+        np.array(offsets),
+        centres,
+        project,
+    )
+    reported = [
+        i for i, c in enumerate(all_cases) if c.eccentricity_sign != 0 or settings.include_centred_case
+    ]
+    cases = tuple(results[i] for i in reported)
+
+    centred = {
+        c.direction: unit_cases[i] for i, c in enumerate(all_cases) if c.eccentricity_sign == 0 and c.sign > 0
+    }
+    storey_k = np.column_stack(
+        [_storey_stiffness(centred[d], centres, patterns[i], d) for i, d in enumerate(DIRECTIONS)]
+    )
+
+    storeys = _storeys(
+        project,
+        floors,
+        storey_stiffnesses(project, floors, patterns),
+        no_twist_offsets(K, patterns),
+        cases,
+        storey_k,
+        masses,
+        heights,
+        drift_amplification(settings),
+    )
+    scales = np.array([loads[DIRECTIONS.index(r.case.direction)].base_shear for r in cases])
+    elements = tuple(
+        _element_demand(project, element, floors, unit[:, reported] * scales, cases)
+        for element in project.elements
+    )
+    order = mode_order(modes)
+    return LateralResults(
+        rule_set=settings.rule_set.value,
+        loads=(loads[0], loads[1]),
+        accidental_eccentricity=frozen_array(eccentricity),
+        drift_amplification=drift_amplification(settings),
+        drift_reduction=drift_reduction(settings),
+        drift_limit=settings.drift_limit,
+        cases=cases,
+        storeys=storeys,
+        elements=elements,
+        mode_order=order,
+        verdicts=judge(settings, storeys, order),
+    )
+
+
+def _modal_period(modes: Sequence[Mode], axis: int) -> float:
+    """Period of the mode with the largest effective mass in direction ``axis`` (0 = x, 1 = y)."""
+    return max(modes, key=lambda m: m.mass_ratio[axis]).period
+
+
+def _storey_stiffness(
+    unit: FloatArray, centres: FloatArray, pattern: FloatArray, direction: str
+) -> FloatArray:
+    """Storey shear over storey drift at the mass centre under a centred unit pattern."""
+    drifts = storey_drifts(unit, centres, centres[:, None, :], direction)[:, 0]
+    shears = pattern[::-1].cumsum()[::-1]
+    with np.errstate(divide="ignore", invalid="ignore"):
+        return np.where(drifts > 0, shears / drifts, np.nan)
+
+
+def _storeys(
+    project: Project,
+    floors: tuple[FloorMass, ...],
+    rigidity: tuple[StoreyStiffness, ...],
+    no_twist: FloatArray,
+    cases: tuple[CaseResult, ...],
+    storey_k: FloatArray,
+    masses: FloatArray,
+    heights: FloatArray,
+    amplification: float,
+) -> tuple[StoreyLateral, ...]:
+    drift = {d: design_drift_ratios(cases, heights, d, amplification) for d in DIRECTIONS}
+    ratios = {d: stiffness_ratios(storey_k[:, i]) for i, d in enumerate(DIRECTIONS)}
+    mass = mass_ratios(masses)
+    out = []
+    for j, floor in enumerate(floors):
+        a = rigidity[j]
+        cx, cy = floor.centre
+        ecc = a.centre if a.centre is not None else (0.0, 0.0)
+        r_x, r_y = a.torsional_radius
+        l_s = floor.radius_of_gyration
+        twist = no_twist[j]
+        by_direction = {d: [c for c in cases if c.case.direction == d] for d in DIRECTIONS}
+        out.append(
+            StoreyLateral(
+                storey=j + 1,
+                name=floor.name,
+                height=float(heights[j]),
+                mass_centre=(cx, cy),
+                rigidity_centre=None if a.centre is None else (cx + ecc[0], cy + ecc[1]),
+                no_twist_centre=None
+                if np.any(np.isnan(twist))
+                else (cx + float(twist[0]), cy + float(twist[1])),
+                eccentricity=(float(ecc[0]), float(ecc[1])),
+                no_twist_eccentricity=(float(np.nan_to_num(twist[0])), float(np.nan_to_num(twist[1]))),
+                lateral_stiffness=(float(a.matrix[0, 0]), float(a.matrix[1, 1])),
+                torsional_stiffness=a.torsional_stiffness,
+                torsional_radius=(r_x, r_y),
+                radius_of_gyration=l_s,
+                eccentricity_ratio=(_ratio(abs(ecc[0]), r_x), _ratio(abs(ecc[1]), r_y)),
+                radius_ratio=(_ratio(r_x, l_s), _ratio(r_y, l_s)),
+                torsion_ratio=tuple(  # type: ignore[arg-type]
+                    max((float(c.torsion_ratio[j]) for c in by_direction[d]), default=1.0) for d in DIRECTIONS
+                ),
+                amplification=tuple(  # type: ignore[arg-type]
+                    max((float(c.amplification[j]) for c in by_direction[d]), default=1.0) for d in DIRECTIONS
+                ),
+                drift_ratio=(float(drift["x"][0][j]), float(drift["y"][0][j])),
+                corner_drift_ratio=(float(drift["x"][1][j]), float(drift["y"][1][j])),
+                storey_stiffness=(float(storey_k[j, 0]), float(storey_k[j, 1])),
+                stiffness_ratio_above=(float(ratios["x"][0][j]), float(ratios["y"][0][j])),
+                stiffness_ratio_average=(float(ratios["x"][1][j]), float(ratios["y"][1][j])),
+                mass_ratio=(float(mass[j, 0]), float(mass[j, 1])),
+            )
+        )
+    return tuple(out)
+
+
+def _ratio(numerator: float, denominator: float) -> float:
+    if denominator > 0:
+        return numerator / denominator
+    return 0.0 if numerator == 0 else float("inf")
+
+
+def _element_demand(
+    project: Project,
+    element: Element,
+    floors: tuple[FloorMass, ...],
+    displacements: FloatArray,
+    cases: tuple[CaseResult, ...],
+) -> ElementDemand:
+    """Shears, shares, brace forces and base moment of one element over the reported cases.
+
+    ``displacements`` is (3N, cases): the global response of each case."""
+    T = element_transformation(element, floors)
+    line = T @ displacements  # (storeys, cases) along the element's line, relative to its bottom
+    k = element_matrix(project, element)
+    floor_forces = k @ line
+    shears = floor_forces[::-1].cumsum(axis=0)[::-1].T  # (cases, storeys)
+    c, s = element.direction
+    along = np.array([c if r.case.direction == "x" else s for r in cases])
+    spanned = slice(element.bottom, element.top)
+    storey_shears = np.array([r.storey_shears[spanned] for r in cases])
+    shares = element_shares(shears, along, storey_shears)
+    heights = element_storey_heights(project, element)
+    z = np.cumsum(heights)
+    base_moment = np.abs(z @ floor_forces).max() if len(cases) else 0.0
+    n = element.storey_count
+    braces = np.zeros((n, 0))
+    if isinstance(element.properties, BracedFrame) and len(cases):
+        influence = brace_influence(element.properties, element.length, heights)
+        braces = np.abs(np.einsum("sbf,fc->csb", influence, line)).max(axis=0)
+    return ElementDemand(
+        element=element.id,
+        storeys=tuple(range(element.bottom + 1, element.top + 1)),
+        shears=frozen_array(shears),
+        shares=frozen_array(shares),
+        shear_envelope=frozen_array(np.abs(shears).max(axis=0) if len(cases) else np.zeros(n)),
+        share_envelope=frozen_array(shares.max(axis=0) if len(cases) else np.zeros(n)),
+        brace_force_envelope=frozen_array(braces),
+        base_moment_envelope=float(base_moment),
+    )
+
+
+@lru_cache(maxsize=512)
+def brace_influence(properties: BracedFrame, length: float, heights: tuple[float, ...]) -> FloatArray:
+    """(storeys, braces, floors): brace axial forces per unit displacement of each floor, built
+    once per frame shape (forces are linear in the displacements) so a drag costs one product."""
+    n = len(heights)
+    columns = [member_forces(properties, length, heights, np.eye(n)[i]).brace_axial for i in range(n)]
+    influence = np.stack(columns, axis=-1)
+    influence.setflags(write=False)
+    return influence
