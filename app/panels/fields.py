@@ -10,7 +10,7 @@ from __future__ import annotations
 
 import re
 from collections.abc import Callable, Sequence
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 from typing import Any
 
 from PySide6.QtCore import Qt, Signal
@@ -41,7 +41,6 @@ class Row:
     setter: Callable[[Any, Any], Any] | None = None
     """Build the new object from the old one and the value (default: set_path)."""
     tip: str = ""
-    extra: dict = field(default_factory=dict)
 
     def read(self, obj: Any) -> Any:
         return self.getter(obj) if self.getter else get_path(obj, self.path)
@@ -249,7 +248,8 @@ class FieldForm(QWidget):
         raise KeyError(label)
 
     def error_text(self, label: str) -> str:
+        """The refusal message under the row titled ``label`` ('' if none)."""
         for e in self._editors:
             if e.row.label == label:
-                return e.error.text() if e.error.isVisible() or e.error.text() else ""
+                return e.error.text()
         raise KeyError(label)

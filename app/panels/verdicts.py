@@ -1,0 +1,79 @@
+"""Reading the lateral checks' verdicts for display: worst status per check and per storey."""
+
+from __future__ import annotations
+
+from collections.abc import Iterable
+from dataclasses import dataclass
+
+from PySide6.QtGui import QColor
+
+from app.canvas import style
+from core.lateral_results import STATUS_ORDER, TORSION_RATIO, LateralResults, Status, Verdict
+
+TORSION_CHECKS = frozenset({TORSION_RATIO, "eccentricity over torsional radius", "torsional radius over radius of gyration"})
+"""Verdicts that say whether a storey twists too much, under either rule set."""
+DRIFT_CHECKS = frozenset({"storey drift ratio"})
+
+STATUS_COLOURS = {Status.PASS: style.PASS, Status.WARN: style.WARN, Status.FAIL: style.FAIL}
+STATUS_WORDS = {Status.PASS: "pass", Status.WARN: "warn", Status.FAIL: "fail"}
+
+
+def colour_of(status: Status | None) -> QColor:
+    return STATUS_COLOURS.get(status, style.UNKNOWN) if status is not None else style.UNKNOWN
+
+
+def worst(verdicts: Iterable[Verdict]) -> Verdict | None:
+    """The verdict with the worst status (ties: the one furthest past its limit, by value order)."""
+    chosen: Verdict | None = None
+    for v in verdicts:
+        if chosen is None or STATUS_ORDER[v.status] > STATUS_ORDER[chosen.status]:
+            chosen = v
+    return chosen
+
+
+@dataclass(frozen=True)
+class CheckSummary:
+    """One check over the whole building: its worst verdict and how many storeys fail or warn."""
+
+    name: str
+    worst: Verdict
+    count: int
+    flagged: int
+
+
+def check_summaries(lateral: LateralResults) -> list[CheckSummary]:
+    """One line per distinct check, in the order the checks first appear."""
+    groups: dict[str, list[Verdict]] = {}
+    for v in lateral.verdicts:
+        groups.setdefault(v.name, []).append(v)
+    out = []
+    for name, verdicts in groups.items():
+        w = worst(verdicts)
+        assert w is not None
+        out.append(CheckSummary(name, w, len(verdicts), sum(v.status is not Status.PASS for v in verdicts)))
+    return out
+
+
+@dataclass(frozen=True)
+class StoreyState:
+    """At-a-glance state of one storey: torsion and drift, each a figure and a status."""
+
+    torsion_ratio: float
+    torsion_status: Status | None
+    drift_ratio: float
+    drift_status: Status | None
+
+
+def storey_state(lateral: LateralResults, storey: int) -> StoreyState:
+    figures = lateral.storey(storey)
+    mine = [v for v in lateral.verdicts if v.storey == storey]
+    torsion = worst(v for v in mine if v.name in TORSION_CHECKS)
+    drifts = [v for v in mine if v.name in DRIFT_CHECKS]
+    drift = worst(drifts)
+    drift_value = max((v.value for v in drifts), default=max(figures.drift_ratio))
+    return StoreyState(
+        max(figures.torsion_ratio),
+        torsion.status if torsion else None,
+        drift_value,
+        drift.status if drift else None,
+    )
