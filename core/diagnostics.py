@@ -20,6 +20,7 @@ import numpy as np
 import shapely
 from scipy.linalg import eigh
 
+from core.assembly import element_transformation
 from core.errors import AnalysisError
 from core.model import Element, Project
 from core.results import FloatArray, FloorMass
@@ -65,7 +66,7 @@ def check_stiffness(project: Project, floors: Sequence[FloorMass], K: FloatArray
     largest = max(float(values[-1]), 1e-300)
     ratio = float(values[0]) / largest
     if ratio <= SINGULAR:
-        _raise_mechanism(project, floors, vectors[:, 0] * scale, "can move without any resistance")
+        _raise_mechanism(project, floors, vectors[:, 0] * scale, "can move without any resistance", True)
     if ratio <= ILL_CONDITIONED:
         longest = 2 * math.pi / math.sqrt(values[0])
         shortest = 2 * math.pi / math.sqrt(largest)
@@ -75,6 +76,7 @@ def check_stiffness(project: Project, floors: Sequence[FloorMass], K: FloatArray
             vectors[:, 0] * scale,
             f"is almost unrestrained (its longest period would be {longest:.3g} s beside a shortest of "
             f"{shortest:.3g} s; the results would be meaningless)",
+            singular=False,
         )
 
 
@@ -110,7 +112,7 @@ def _outside_outline(project: Project) -> None:
             if not regions[level - 1].covers(line):
                 bad.append((element, level))
     if bad:
-        parts = [f"{e.id} leaves the outline of level {project.levels[j - 1].name!r}" for e, j in bad]
+        parts = [f"element {e.id} leaves the outline of level {project.levels[j - 1].name!r}" for e, j in bad]
         raise AnalysisError(
             f"{'; '.join(parts)}: an element must stand within every floor it connects. "
             "Move it inside the outline or change the levels it spans.",
@@ -183,7 +185,9 @@ def _describe_direction(c: float, s: float) -> str:
 # --- stiffness ---------------------------------------------------------------------------------
 
 
-def _raise_mechanism(project: Project, floors: Sequence[FloorMass], vector: FloatArray, what: str) -> None:
+def _raise_mechanism(
+    project: Project, floors: Sequence[FloorMass], vector: FloatArray, what: str, singular: bool
+) -> None:
     """Describe the (near) null vector of K floor by floor and raise."""
     motion = vector.reshape(-1, 3)
     radii = np.array([max(f.radius_of_gyration, 1e-9) for f in floors])
@@ -198,8 +202,19 @@ def _raise_mechanism(project: Project, floors: Sequence[FloorMass], vector: Floa
         relative = motion[j] - below
         if np.hypot(np.hypot(relative[0], relative[1]), relative[2] * radii[j]) >= 0.1 * largest:
             deforming.append(j + 1)
-    elements = tuple(dict.fromkeys(e.id for s in deforming for e in project.elements_in_storey(s)))
-    named = f" Elements of the storeys involved: {', '.join(elements)}." if elements else ""
+    # The elements the motion strains are the weak ones; in an exact mechanism none is strained.
+    strain = {e.id: np.abs(element_transformation(e, tuple(floors)) @ vector).max() for e in project.elements}
+    strained = tuple(i for i, v in strain.items() if v > 1e-3 * largest)
+    if strained:
+        elements = strained
+        names = ", ".join(elements)
+        if singular:
+            named = f" It strains {names}, yet they give it no stiffness: check their properties."
+        else:
+            named = f" Only {names} resist{'s' if len(elements) == 1 else ''} it, and barely."
+    else:
+        elements = tuple(dict.fromkeys(e.id for s in deforming for e in project.elements_in_storey(s)))
+        named = f" Elements of the storeys involved: {', '.join(elements)}." if elements else ""
     raise AnalysisError(
         f"the building {what}: {'; '.join(parts)}.{named} Add or stiffen elements there.",
         levels=tuple(floors[j].level for j in moving),

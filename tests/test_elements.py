@@ -279,7 +279,9 @@ def test_sizes_that_overflow_raise_model_error() -> None:
         condensed_stiffness(frame, 6.0, (3.0,))
 
 
-@pytest.mark.parametrize("displacements", [[0.01], [0.01, 0.02, 0.03], [0.01, math.nan], ["a", "b"], [[0.0, 0.0]]])
+@pytest.mark.parametrize(
+    "displacements", [[0.01], [0.01, 0.02, 0.03], [0.01, math.nan], ["a", "b"], [[0.0, 0.0]]]
+)
 def test_bad_displacements_raise_model_error(displacements) -> None:
     with pytest.raises(ModelError) as caught:
         member_forces(BracedFrame(), 6.0, (4.0, 3.5), displacements)

@@ -219,3 +219,14 @@ def test_screenshots_of_each_view(qtbot, sample):
             assert image.width() > 100 and image.height() > 100
             assert len({image.pixel(x, y) for x in range(0, image.width(), 7) for y in range(0, image.height(), 7)}) > 3
             image.save(str(SCREENSHOTS / f"modes_{sample}_mode{number}_{name}.png"))
+
+
+def test_the_plan_starts_on_the_roof_and_follows_the_edited_level(qtbot):
+    document, panel = _open(qtbot, "office_5_storey_braced")
+    roof = len(document.results.floors) - 1
+    assert panel.floor_index == roof and panel.floor_box.currentIndex() == roof
+    document.set_current_level(2)
+    assert panel.floor_index == 1 and panel.floor_box.currentText() == document.project.levels[1].name
+    np.testing.assert_allclose(_curve(panel.plan._rest_outlines), panel._geometry.outlines.xy)
+    panel.clock.set_phase(0.0)
+    np.testing.assert_allclose(_curve(panel.plan._floor), panel._geometry.outlines.on_floor(1).xy)

@@ -72,12 +72,12 @@ class BuildingMotionView(pg.PlotWidget):
         self._ground = SegmentLines(pen(UNDEFORMED, 1.5), z=0)
         self._rest = SegmentLines(pen(UNDEFORMED, 1.0), z=0)
         self._triad = SegmentLines(pen(TEXT, 1.0), z=0)
-        self._floors = SegmentLines(pen(MOVING_FLOOR, 1.5), z=3)
+        self._floors = SegmentLines(pen(MOVING_FLOOR, 1.5), z=2)
         wall = QColor(KIND_COLOURS[ElementKind.SHEAR_WALL])
         wall_fill = QColor(wall)
         wall_fill.setAlpha(70)
         self._walls = FilledQuads(pen(wall, 1.0), QBrush(wall_fill), z=1)
-        self._lines = {kind: SegmentLines(pen(KIND_COLOURS[kind], 1.5), z=2) for kind in _LINE_KINDS}
+        self._lines = {kind: SegmentLines(pen(KIND_COLOURS[kind], 1.5), z=3) for kind in _LINE_KINDS}
         self._mass_axis = SegmentLines(pen(MASS_CENTRE, 2.5), z=5)
         self._rigidity_axis = SegmentLines(pen(RIGIDITY_CENTRE, 2.5, Qt.PenStyle.DashLine), z=4)
         for line in (self._ground, self._rest, self._triad, self._floors, self._walls, *self._lines.values(),

@@ -12,9 +12,9 @@ from PySide6.QtCore import Qt, Signal
 from PySide6.QtGui import QBrush, QColor
 
 from app.canvas.style import pen
-from app.mode_views.palette import CHART_BACKGROUND, COMPONENT_COLOURS, SELECTED_BAR, TEXT
+from app.mode_views.palette import CHART_BACKGROUND, COMPONENT_COLOURS, KIND_BAR_COLOURS, SELECTED_BAR, TEXT
 from core.mode_frames import height_profile
-from core.results import Results
+from core.results import ModeKind, Results
 
 BAR_WIDTH = 0.7
 TARGET_MASS_RATIO = 0.9
@@ -75,29 +75,35 @@ class PeriodChart(_ModeBarChart):
     def __init__(self, parent: object = None) -> None:
         super().__init__(parent)
         self.setObjectName("modePeriodChart")
-        _style(self.getPlotItem(), "mode", "period T (s)", "Periods")
+        _style(self.getPlotItem(), "mode", "period T (s)", "Periods (colour: x, y, torsion, mixed)")
         self._bars = pg.BarGraphItem(x=[], height=[], width=BAR_WIDTH)
         self.addItem(self._bars)
         self._periods: list[float] = []
+        self._kinds: list[ModeKind] = []
         self.selected = 0
 
     def show_results(self, results: Results, selected: int) -> None:
         self._periods = [m.period for m in results.modes]
+        self._kinds = [m.kind for m in results.modes]
         self._set_mode_axis(len(self._periods))
         self.getPlotItem().setYRange(0.0, 1.1 * max(self._periods, default=1.0), padding=0)
         self.select_mode(selected)
 
     def select_mode(self, number: int) -> None:
+        """Bars coloured by what each mode mostly does; the selected one opaque with a dark edge."""
         self.selected = number
-        brushes = [QBrush(SELECTED_BAR if n == number else _faded(TEXT, 90))
-                   for n in range(1, len(self._periods) + 1)]
+        brushes, pens = [], []
+        for n, kind in enumerate(self._kinds, start=1):
+            colour = KIND_BAR_COLOURS[kind]
+            brushes.append(QBrush(colour if n == number else _faded(colour, 110)))
+            pens.append(pen(SELECTED_BAR, 2.0) if n == number else pen(_faded(colour, 160), 0.5))
         self._bars.setOpts(x=np.arange(1, len(self._periods) + 1), height=self._periods, width=BAR_WIDTH,
-                           brushes=brushes, pen=pen(TEXT, 0.5))
+                           brushes=brushes, pens=pens)
 
     def clear_results(self) -> None:
-        self._periods = []
+        self._periods, self._kinds = [], []
         self._set_mode_axis(0)
-        self._bars.setOpts(x=[], height=[], brushes=[])
+        self._bars.setOpts(x=[], height=[], brushes=None, pens=None)
 
 
 class MassRatioChart(_ModeBarChart):
@@ -121,7 +127,8 @@ class MassRatioChart(_ModeBarChart):
             self._cumulative.append(line)
         self._target = pg.InfiniteLine(pos=TARGET_MASS_RATIO, angle=0, pen=pen(TEXT, 1.0, Qt.PenStyle.DotLine),
                                        label="90 % (EN 1998-1 §4.3.3.3.1)",
-                                       labelOpts={"position": 0.98, "color": TEXT, "anchors": [(1, 0), (1, 0)]})
+                                       labelOpts={"position": 0.98, "color": TEXT, "anchors": [(1, 0), (1, 0)],
+                                                  "fill": _faded(CHART_BACKGROUND, 225)})
         self.addItem(self._target)
         self._marker = pg.BarGraphItem(x=[], height=[], width=BAR_WIDTH, brush=None, pen=pen(SELECTED_BAR, 2.0))
         self.addItem(self._marker)

@@ -11,6 +11,14 @@ Y_COLOUR = QColor("#d4881c")
 ROTATION_COLOUR = QColor("#8e3d8f")
 COMPONENT_COLOURS = (X_COLOUR, Y_COLOUR, ROTATION_COLOUR)
 
+MIXED_COLOUR = QColor("#8b877b")
+KIND_BAR_COLOURS = {
+    ModeKind.X: X_COLOUR,
+    ModeKind.Y: Y_COLOUR,
+    ModeKind.TORSION: ROTATION_COLOUR,
+    ModeKind.MIXED: MIXED_COLOUR,
+}
+
 UNDEFORMED = QColor(120, 116, 104, 90)
 """The building at rest, drawn faint beneath the motion."""
 OTHER_FLOORS = QColor(70, 68, 62, 110)

@@ -74,7 +74,8 @@ class ModeViewsPanel(QWidget):
         self.masses = MassRatioChart()
         self.shape = ShapeChart()
         self.mode_number = max(1, document.current_mode)
-        self.floor_index = max(0, document.current_level - 1)
+        self.floor_index: int | None = None
+        """0-based floor emphasised in the plan: the roof until the editor's level changes."""
         self._geometry: BuildingGeometry | None = None
         self._results: Results | None = None
         self._project: Project | None = None
@@ -202,7 +203,8 @@ class ModeViewsPanel(QWidget):
         self._results, self._project = results, project
         self._geometry = building_geometry(project, results.floors, rigidity_centres(results))
         self.mode_number = min(max(1, self.mode_number), len(results.modes))
-        self.floor_index = min(self.floor_index, len(results.floors) - 1)
+        roof = len(results.floors) - 1
+        self.floor_index = roof if self.floor_index is None else min(self.floor_index, roof)
         self._fill_choices()
         self.stack.setCurrentIndex(0)
         self.periods.show_results(results, self.mode_number)
@@ -251,14 +253,14 @@ class ModeViewsPanel(QWidget):
         self.floor_box.setCurrentIndex(self.floor_index)
 
     def _show_motion(self) -> None:
-        results, geometry = self._results, self._geometry
-        if results is None or geometry is None:
+        results, geometry, floor = self._results, self._geometry, self.floor_index
+        if results is None or geometry is None or floor is None:
             return
         mode = results.modes[self.mode_number - 1]
         peak = self.amplitude_slider.value() / 100 * geometry.plan_size
         scale = peak_scale(geometry, results.floors, mode, peak)
         phase = self.clock.phase
-        self.plan.show_mode(geometry, results.floors, mode, scale, peak, self.floor_index, phase)
+        self.plan.show_mode(geometry, results.floors, mode, scale, peak, floor, phase)
         self.building.show_mode(geometry, results.floors, mode, scale, peak, phase)
         self.shape.show_mode(results, self.mode_number)
         self.amplitude_label.setText(f"{self.amplitude_slider.value()} % of plan = {peak:.2f} m peak")

@@ -6,6 +6,7 @@ from collections.abc import Sequence
 
 import numpy as np
 import pyqtgraph as pg
+from PySide6.QtWidgets import QGraphicsItem
 
 from app.canvas.style import KIND_COLOURS, MASS_CENTRE, PAPER, RIGIDITY_CENTRE, pen
 from app.mode_views.items import SegmentLines
@@ -15,10 +16,10 @@ from core.model import ElementKind
 from core.results import FloorMass, Mode
 
 _KIND_WIDTH = {
-    ElementKind.BRACED_FRAME: 3.0,
-    ElementKind.SHEAR_WALL: 5.0,
-    ElementKind.MOMENT_FRAME: 3.0,
-    ElementKind.SPRING: 2.0,
+    ElementKind.BRACED_FRAME: 4.0,
+    ElementKind.SHEAR_WALL: 6.0,
+    ElementKind.MOMENT_FRAME: 4.0,
+    ElementKind.SPRING: 3.0,
 }
 
 
@@ -35,14 +36,18 @@ class PlanMotionView(pg.PlotWidget):
         item.setMenuEnabled(False)
         item.showGrid(x=True, y=True, alpha=0.15)
         for name, label in (("bottom", "x (m)"), ("left", "y (m)")):
-            item.getAxis(name).enableAutoSIPrefix(False)
-            item.getAxis(name).setLabel(label)
+            axis = item.getAxis(name)
+            axis.enableAutoSIPrefix(False)
+            axis.setLabel(label)
+            # The axes also draw the grid across the view; replaying that on every frame cost
+            # most of the frame, and the range never changes while the motion runs.
+            axis.setCacheMode(QGraphicsItem.CacheMode.DeviceCoordinateCache)
         item.vb.disableAutoRange()
         self._rest_outlines = SegmentLines(pen(UNDEFORMED, 1.0), z=0)
         self._rest_markers = SegmentLines(pen(UNDEFORMED, 1.0), z=0)
         self._other_floors = SegmentLines(pen(OTHER_FLOORS, 1.0), z=1)
-        self._floor = SegmentLines(pen(MOVING_FLOOR, 2.0), z=3)
-        self._elements = {kind: SegmentLines(pen(KIND_COLOURS[kind], _KIND_WIDTH[kind]), z=2) for kind in ElementKind}
+        self._floor = SegmentLines(pen(MOVING_FLOOR, 1.5), z=2)
+        self._elements = {kind: SegmentLines(pen(KIND_COLOURS[kind], _KIND_WIDTH[kind]), z=3) for kind in ElementKind}
         self._mass = SegmentLines(pen(MASS_CENTRE, 2.0), z=5)
         self._rigidity = SegmentLines(pen(RIGIDITY_CENTRE, 2.0), z=4)
         for line in (self._rest_outlines, self._rest_markers, self._other_floors, self._floor,

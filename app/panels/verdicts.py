@@ -23,7 +23,7 @@ def colour_of(status: Status | None) -> QColor:
 
 
 def worst(verdicts: Iterable[Verdict]) -> Verdict | None:
-    """The verdict with the worst status (ties: the one furthest past its limit, by value order)."""
+    """The first verdict with the worst status."""
     chosen: Verdict | None = None
     for v in verdicts:
         if chosen is None or STATUS_ORDER[v.status] > STATUS_ORDER[chosen.status]:

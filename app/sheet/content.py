@@ -49,16 +49,31 @@ class TitleFields:
     file_name: str
 
 
+SHORT_NAMES: dict[str, str] = {
+    "eccentricity over torsional radius": "e₀ / r",
+    "torsional radius over radius of gyration": "r / l_s",
+    "storey stiffness over storey above": "stiffness / storey above",
+    "storey stiffness over three storeys above": "stiffness / 3 storeys above",
+    "mass over adjacent storey": "mass / adjacent",
+    "storey drift ratio": "drift ratio",
+}
+"""Column headings for the verdict names of core.lateral, short enough for a narrow table; the
+footnotes spell each one out. Names not listed are shown in full."""
+
+
 @dataclass(frozen=True)
 class ChecksColumn:
     """One judged figure of the per-storey checks: its name, direction, limit and clauses."""
 
     name: str
+    label: str
+    """The short heading (SHORT_NAMES), or the name itself."""
     direction: str | None
     limit: float | None
     """The limit if it is the same for every storey, else None (cells then show their own)."""
     clauses: tuple[str, ...]
     """Footnote numbers (1-based, into SheetContent.clauses) of the clauses this column uses."""
+
 
 
 @dataclass(frozen=True)
@@ -149,10 +164,10 @@ def checks_table(
     checks and the clause footnotes, from the verdicts of the active rule set."""
     clauses: list[str] = []
 
-    def footnote(clause: str) -> int:
-        if clause not in clauses:
-            clauses.append(clause)
-        return clauses.index(clause) + 1
+    def footnote(text: str) -> int:
+        if text not in clauses:
+            clauses.append(text)
+        return clauses.index(text) + 1
 
     keys: list[tuple[str, str | None]] = []
     by_key: dict[tuple[str, str | None], list[Verdict]] = {}
@@ -162,12 +177,16 @@ def checks_table(
             keys.append(key)
             by_key[key] = []
         by_key[key].append(verdict)
+    names = list(dict.fromkeys(name for name, _ in keys))
+    keys.sort(key=lambda k: (names.index(k[0]), _DIRECTION_ORDER.get(k[1], 2)))
     columns = []
     for key in keys:
         verdicts = by_key[key]
         limits = {v.limit for v in verdicts}
-        numbers = tuple(dict.fromkeys(footnote(v.clause) for v in verdicts))
-        columns.append(ChecksColumn(key[0], key[1], limits.pop() if len(limits) == 1 else None,
+        label = SHORT_NAMES.get(key[0], key[0])
+        named = f"{label} — {key[0]}" if label != key[0] else key[0]
+        numbers = tuple(dict.fromkeys(footnote(f"{named}: {v.clause}") for v in verdicts))
+        columns.append(ChecksColumn(key[0], label, key[1], limits.pop() if len(limits) == 1 else None,
                                     tuple(str(n) for n in numbers)))
     storeys = sorted({v.storey for v in _storey_verdicts(lateral)} | set(level_names), reverse=True)
     rows = []
@@ -189,9 +208,13 @@ def checks_table(
     return tuple(columns), tuple(rows), building, tuple(clauses)
 
 
+_DIRECTION_ORDER = {"x": 0, "y": 1}
+
+
 def _building_text(verdict: Verdict) -> str:
     direction = f" ({verdict.direction})" if verdict.direction else ""
-    return f"{verdict.name}{direction}: {number_text(verdict.value)} against {number_text(verdict.limit)}"
+    note = f"; {verdict.note.rstrip('.')}" if verdict.note else ""
+    return f"{verdict.name}{direction}: {number_text(verdict.value)} against {number_text(verdict.limit)}{note}"
 
 
 def number_text(value: float) -> str:

@@ -16,6 +16,9 @@ from PySide6.QtGui import QBrush, QColor, QFont, QPainter, QPen
 from core.lateral_results import Status
 
 FONT_FAMILIES = ["DejaVu Sans", "Liberation Sans", "Arial", "Helvetica"]
+NO_LIGATURES = ("liga", "clig")
+"""OpenType features switched off so the PDF's text layer holds plain letters ("fi", not "ﬁ"),
+and a search for a project name in a PDF viewer finds it."""
 
 INK = QColor("#1d232a")
 MUTED = QColor("#5f6b76")
@@ -64,6 +67,8 @@ class Paper:
         font.setPointSizeF(points * (self.font_scale if scaled else 1.0))
         font.setBold(bold)
         font.setItalic(italic)
+        for tag in NO_LIGATURES:
+            font.setFeature(QFont.Tag(tag), 0)
         if narrow:
             font.setStretch(QFont.Stretch.SemiCondensed)
         return font
@@ -135,6 +140,9 @@ class Cell:
 class TableLayout:
     """A table measured for a width, so its height is known before it is drawn."""
 
+    MIN_FONT_SHARE = 0.8
+    """The cell font shrinks to at most this share of its size to fit a narrow table."""
+
     def __init__(
         self,
         paper: Paper,
@@ -142,22 +150,31 @@ class TableLayout:
         columns: Sequence[Column],
         rows: Sequence[Sequence[Cell | str]],
         points: float = 6.5,
-        unit_mm: float | None = None,
+        max_column_mm: float | None = None,
     ) -> None:
-        """``unit_mm`` caps the width of one unit of ``Column.width``, so a table of few columns
-        stays compact instead of stretching across the page."""
+        """Columns get the width their widest cell (and longest header word) needs, and share what
+        is left by their ``width`` weights; ``max_column_mm`` keeps a table of few columns compact.
+        When the cells do not fit, the font shrinks (to ``MIN_FONT_SHARE``) and then cells elide."""
         self.paper = paper
         self.columns = list(columns)
         self.rows = [[c if isinstance(c, Cell) else Cell(c) for c in row] for row in rows]
-        total = sum(c.width for c in columns)
-        if unit_mm is not None:
-            width = min(width, paper.mm(unit_mm) * total)
-        self.widths = [width * c.width / total for c in columns]
-        self.width = width
-        self.body_font = paper.font(points, narrow=True)
-        self.bold_font = paper.font(points, bold=True, narrow=True)
-        self.header_font = paper.font(points - 0.5, bold=True, narrow=True)
         self.pad = paper.mm(0.8)
+        share = 1.0
+        natural = self._natural_widths(points)
+        if sum(natural) > width:
+            share = max(self.MIN_FONT_SHARE, width / sum(natural))
+            natural = self._natural_widths(points * share)
+        self._fonts(points * share)
+        if max_column_mm is not None:
+            width = min(width, sum(max(n, paper.mm(max_column_mm) * c.width) for n, c in zip(natural, columns,
+                                                                                              strict=True)))
+        spare = width - sum(natural)
+        if spare >= 0:
+            total = sum(c.width for c in columns)
+            self.widths = [n + spare * c.width / total for n, c in zip(natural, columns, strict=True)]
+        else:
+            self.widths = [n * width / sum(natural) for n in natural]
+        self.width = width
         self.row_height = paper.line_height(self.body_font) * 1.3
         self.header_height = (
             max(
@@ -166,6 +183,26 @@ class TableLayout:
             )
             + 2 * self.pad
         )
+
+    def _fonts(self, points: float) -> None:
+        paper = self.paper
+        self.body_font = paper.font(points, narrow=True)
+        self.bold_font = paper.font(points, bold=True, narrow=True)
+        self.header_font = paper.font(points - 0.5, bold=True, narrow=True)
+
+    def _natural_widths(self, points: float) -> list[float]:
+        """Width each column needs at ``points``: its widest cell or longest header word."""
+        self._fonts(points)
+        paper = self.paper
+        widths = []
+        for i, column in enumerate(self.columns):
+            words = column.header.split()
+            need = max((paper.text_width(w, self.header_font) for w in words), default=0.0)
+            for row in self.rows:
+                cell = row[i]
+                need = max(need, paper.text_width(cell.text, self.bold_font if cell.bold else self.body_font))
+            widths.append(need + 2 * self.pad + paper.mm(0.3))
+        return widths
 
     @property
     def height(self) -> float:
@@ -192,7 +229,10 @@ class TableLayout:
                     tint, colour = STATUS_COLOURS[cell.status]
                     paper.fill(box.adjusted(paper.mm(0.15), paper.mm(0.15), -paper.mm(0.15), -paper.mm(0.15)), tint)
                 font = self.bold_font if cell.bold else self.body_font
-                paper.text(box.adjusted(self.pad, 0, -self.pad, 0), cell.text, font, colour, column.align)
+                inner = box.adjusted(self.pad, 0, -self.pad, 0)
+                paper.painter.setFont(font)
+                text = paper.painter.fontMetrics().elidedText(cell.text, Qt.TextElideMode.ElideRight, int(inner.width()))
+                paper.text(inner, text, font, colour, column.align)
                 left += w
             top += self.row_height
             if index < len(self.rows) - 1:

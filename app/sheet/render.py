@@ -46,7 +46,7 @@ GAP_MM = 3.5
 TITLE_MM = 21.0
 MIN_PLAN_MM = 88.0
 """Smallest height of the plan before the tables give way."""
-MIN_SKETCH_MM = 40.0
+MIN_SKETCH_MM = 30.0
 """Smallest height of the row of mode sketches on a landscape page."""
 FONT_SCALES = (1.0, 0.92, 0.85)
 CAUTION_FILL = QColor("#fff6dd")
@@ -225,22 +225,24 @@ class SheetPainter:
                     value += f"/{number_text(cell.limit)}"
                 cells.append(Cell(f"{value} {cell.status.value}", cell.status, bold=cell.status is Status.FAIL))
             rows.append(cells)
-        return TableLayout(self.paper, width, columns, rows, 6.3, unit_mm=19.0)
+        return TableLayout(self.paper, width, columns, rows, 6.3, max_column_mm=19.0)
 
     def checks_notes(self) -> list[str]:
         content = self.content
-        notes = [f"{c.text} — {c.status.value} [{c.clause}]" for c in content.building_checks]
+        notes = [f"{c.text} — {c.status.value} [{c.clause}]." for c in content.building_checks]
         if content.rows_omitted:
             notes.append(f"{content.rows_omitted} storeys that pass every check are not listed (see the CSV export).")
         notes += [f"[{i}] {clause}" for i, clause in enumerate(content.clauses, start=1)]
         return notes
 
     def checks_block(self) -> Block:
+        """Heading, the per-storey table, the whole-building checks and the clause footnotes."""
         content = self.content
         paper = self.paper
         title = "Checks per storey"
+        notes = self.checks_notes()
         if not content.columns:
-            message = [f"No figure is judged per storey under rule set {content.rule_set}.", *self.checks_notes()]
+            message = [f"No figure is judged per storey under rule set {content.rule_set}.", *notes]
 
             def measure_empty(width: float) -> float:
                 return self.heading_height() + self.lines_height(message, width, 6.2)
@@ -250,17 +252,19 @@ class SheetPainter:
                 self.lines(QRectF(rect.left(), top, rect.width(), rect.height()), message, 6.2)
 
             return Block(measure_empty, draw_empty)
-        note = f"rule set {content.rule_set}; worst case per storey; top storey first"
+        note = f"rule set {content.rule_set}; x, y: direction of analysis; worst case per storey, top first"
+
+        def notes_height(width: float) -> float:
+            return paper.mm(1) + self.lines_height(notes, width, 5.8)
 
         def measure(width: float) -> float:
-            return (self.heading_height() + self.checks_table(width).height + paper.mm(1)
-                    + self.lines_height(self.checks_notes(), width, 5.8))
+            return self.heading_height() + self.checks_table(width).height + notes_height(width)
 
         def draw(rect: QRectF) -> None:
             top = rect.top() + self.heading(rect, title, note)
             bottom = self.checks_table(rect.width()).draw(rect.left(), top)
-            self.lines(QRectF(rect.left(), bottom + paper.mm(1), rect.width(), rect.bottom() - bottom),
-                       self.checks_notes(), 5.8, colour=MUTED)
+            self.lines(QRectF(rect.left(), bottom + paper.mm(1), rect.width(), rect.bottom() - bottom), notes,
+                       5.8, colour=MUTED)
 
         return Block(measure, draw)
 
@@ -357,7 +361,7 @@ class SheetPainter:
 
 
 def _column_header(column: ChecksColumn) -> str:
-    name = column.name + (f" {column.direction}" if column.direction else "")
+    name = column.label + (f", {column.direction}" if column.direction else "")
     limit = f"limit {column.limit:g} " if column.limit is not None else ""
     return f"{name}\n{limit}[{', '.join(column.clauses)}]"
 
@@ -458,28 +462,32 @@ def _portrait(painter: QPainter, project: Project, results: Results, content: Sh
 
 def _landscape(painter: QPainter, project: Project, results: Results, content: SheetContent, page: QRectF,
                body_bottom: float, gap: float) -> SheetPainter:
-    left_w = page.width() * 0.47
+    """Left: plan, assumptions, caution. Right: sketches in a row, modes, checks with their notes."""
+    left_w = page.width() * 0.42
     right_w = page.width() - left_w - gap
     x = page.left() + left_w + gap
+    body = body_bottom - page.top()
 
     def plan_height(sheet: SheetPainter) -> float:
-        return body_bottom - page.top() - sheet.assumptions_block().measure(left_w) - gap
+        return body - sheet.assumptions_block().measure(left_w) - sheet.caution_block().measure(left_w) - 2 * gap
 
     def sketch_height(sheet: SheetPainter) -> float:
-        return (body_bottom - page.top() - sheet.modes_block().measure(right_w) - sheet.checks_block().measure(right_w)
-                - sheet.caution_block().measure(right_w) - 3 * gap)
+        return body - sheet.modes_block().measure(right_w) - sheet.checks_block().measure(right_w) - 2 * gap
 
     def fits(sheet: SheetPainter) -> bool:
         paper = sheet.paper
         return plan_height(sheet) >= paper.mm(MIN_PLAN_MM) and sketch_height(sheet) >= paper.mm(MIN_SKETCH_MM)
 
     sheet = _fit(painter, project, results, content, fits)
-    plan_h = plan_height(sheet)
-    sheet.draw_plan_panel(QRectF(page.left(), page.top(), left_w, plan_h))
-    assumptions = sheet.assumptions_block()
-    assumptions.draw(QRectF(page.left(), page.top() + plan_h + gap, left_w, assumptions.measure(left_w)))
+    plan_h, sketch_h = plan_height(sheet), sketch_height(sheet)
     y = page.top()
-    sketch_h = sketch_height(sheet)
+    sheet.draw_plan_panel(QRectF(page.left(), y, left_w, plan_h))
+    assumptions = sheet.assumptions_block()
+    a_h = assumptions.measure(left_w)
+    assumptions.draw(QRectF(page.left(), y + plan_h + gap, left_w, a_h))
+    caution = sheet.caution_block()
+    c_h = caution.measure(left_w)
+    caution.draw(QRectF(page.left(), body_bottom - c_h, left_w, c_h))
     sheet.draw_sketches(QRectF(x, y, right_w, sketch_h), across=True)
     y += sketch_h + gap
     modes, checks = sheet.modes_block(), sheet.checks_block()
@@ -487,7 +495,4 @@ def _landscape(painter: QPainter, project: Project, results: Results, content: S
     modes.draw(QRectF(x, y, right_w, m_h))
     y += m_h + gap
     checks.draw(QRectF(x, y, right_w, checks.measure(right_w)))
-    caution = sheet.caution_block()
-    c_h = caution.measure(right_w)
-    caution.draw(QRectF(x, body_bottom - c_h, right_w, c_h))
     return sheet

@@ -148,7 +148,9 @@ def opensees_wall(ops: ModuleType, wall: ShearWall, length: float, heights: tupl
     return tags
 
 
-def opensees_moment_frame(ops: ModuleType, frame: MomentFrame, length: float, heights: tuple[float, ...]) -> Tags:
+def opensees_moment_frame(
+    ops: ModuleType, frame: MomentFrame, length: float, heights: tuple[float, ...]
+) -> Tags:
     width = length / frame.bays
     grid = _node_grid(ops, frame.bays, width, heights, (1, 1, 1))
     ops.geomTransf("Linear", 1)
@@ -218,12 +220,20 @@ def relative_difference(K: np.ndarray, reference: np.ndarray) -> float:
 
 
 UNEQUAL = (4.5, 3.5, 3.5, 3.0)
+CONCRETE_FRAME = MomentFrame(
+    bays=3, modulus=3.3e7, column_inertia=0.0108, column_area=0.36, beam_inertia=0.0114, beam_area=0.28,
+    stiffness_factor=0.5,
+)  # fmt: skip
 
 OPENSEES_CASES = {
     "single 1 bay 1 storey": (BracedFrame(pattern=BracePattern.SINGLE), 6.0, (4.0,)),
     "single 2 bays 4 storeys": (BracedFrame(pattern=BracePattern.SINGLE, bays=2), 12.0, UNEQUAL),
     "cross 1 bay 1 storey": (BracedFrame(pattern=BracePattern.CROSS), 6.0, (4.0,)),
-    "cross 3 bays 4 storeys": (BracedFrame(pattern=BracePattern.CROSS, bays=3, brace_area=5e-3), 15.0, UNEQUAL),
+    "cross 3 bays 4 storeys": (
+        BracedFrame(pattern=BracePattern.CROSS, bays=3, brace_area=5e-3),
+        15.0,
+        UNEQUAL,
+    ),
     "cross tension-only 2 bays 3 storeys": (
         BracedFrame(pattern=BracePattern.CROSS, bays=2, tension_only=True),
         14.0,
@@ -235,12 +245,7 @@ OPENSEES_CASES = {
     "wall 1 storey": (ShearWall(), 5.0, (3.5,)),
     "wall 4 storeys": (ShearWall(thickness=0.3, stiffness_factor=0.7), 6.5, UNEQUAL),
     "moment frame 2 bays 3 storeys": (MomentFrame(bays=2), 12.0, (4.2, 3.6, 3.6)),
-    "concrete moment frame 3 bays 4 storeys": (
-        MomentFrame(bays=3, modulus=3.3e7, column_inertia=0.0108, column_area=0.36, beam_inertia=0.0114,
-                    beam_area=0.28, stiffness_factor=0.5),
-        18.0,
-        UNEQUAL,
-    ),  # fmt: skip
+    "concrete moment frame 3 bays 4 storeys": (CONCRETE_FRAME, 18.0, UNEQUAL),
 }
 
 
@@ -288,10 +293,16 @@ def test_member_forces_match_opensees(ops: ModuleType, case: str) -> None:
         close(forces.column_moment, column_moment, base_moment)
         close(forces.column_axial, [[local[t][3] for t in row] for row in tags.columns], scale)
         # OpenSees' local end moments act counter-clockwise on the member; sagging = −M_i, +M_j.
-        close(forces.beam_moment, [[(-local[t][2], local[t][5]) for t in row] for row in tags.beams], base_moment)
+        close(
+            forces.beam_moment,
+            [[(-local[t][2], local[t][5]) for t in row] for row in tags.beams],
+            base_moment,
+        )
     if tags.walls:
         local = [ops.eleResponse(t, "localForce") for t in tags.walls]
-        close(forces.overturning_moment, [f[2] for f in local], sum(loads * np.array(_elevations(heights)[1:])))
+        close(
+            forces.overturning_moment, [f[2] for f in local], sum(loads * np.array(_elevations(heights)[1:]))
+        )
         close(forces.storey_shear, [f[1] for f in local], scale)  # local y of a vertical member is −x
 
 
@@ -323,9 +334,15 @@ def test_cross_and_chevron_with_rigid_members() -> None:
     cross = BracedFrame(pattern=BracePattern.CROSS, **common)
     tension = BracedFrame(pattern=BracePattern.CROSS, tension_only=True, **common)
     chevron = BracedFrame(pattern=BracePattern.CHEVRON, beam_inertia=1.0e3, **common)
-    assert condensed_stiffness(cross, b, (h,))[0, 0] == pytest.approx(2 * E * A * (b / diagonal) ** 2 / diagonal, rel=1e-5)
-    assert condensed_stiffness(tension, b, (h,))[0, 0] == pytest.approx(E * A * (b / diagonal) ** 2 / diagonal, rel=1e-5)
-    assert condensed_stiffness(chevron, b, (h,))[0, 0] == pytest.approx(2 * E * A * (b / 2 / half) ** 2 / half, rel=1e-5)
+    assert condensed_stiffness(cross, b, (h,))[0, 0] == pytest.approx(
+        2 * E * A * (b / diagonal) ** 2 / diagonal, rel=1e-5
+    )
+    assert condensed_stiffness(tension, b, (h,))[0, 0] == pytest.approx(
+        E * A * (b / diagonal) ** 2 / diagonal, rel=1e-5
+    )
+    assert condensed_stiffness(chevron, b, (h,))[0, 0] == pytest.approx(
+        2 * E * A * (b / 2 / half) ** 2 / half, rel=1e-5
+    )
 
 
 def test_chevron_beam_flexure() -> None:
@@ -368,7 +385,9 @@ def test_moment_frame_with_rigid_beams_is_a_shear_chain() -> None:
     frame = MomentFrame(bays=2, beam_inertia=1.0e3, column_area=RIGID_AREA, beam_area=RIGID_AREA)
     k = np.array([3 * 12 * frame.modulus * frame.column_inertia / h**3 for h in heights])
     expected = np.diag(k + np.append(k[1:], 0)) - np.diag(k[1:], 1) - np.diag(k[1:], -1)
-    np.testing.assert_allclose(condensed_stiffness(frame, 10.0, heights), expected, rtol=1e-6, atol=1e-6 * k.max())
+    np.testing.assert_allclose(
+        condensed_stiffness(frame, 10.0, heights), expected, rtol=1e-6, atol=1e-6 * k.max()
+    )
 
 
 def _wall_sections(wall: ShearWall, length: float) -> tuple[float, float]:

@@ -1,0 +1,255 @@
+"""The properties panel: the selected elements' fields, or the project's when nothing is selected.
+
+Every edit goes through the model's validation; a refused value stays in its field with the
+model's message and the project is unchanged.
+"""
+
+from __future__ import annotations
+
+import dataclasses
+
+from PySide6.QtWidgets import QLabel, QScrollArea, QVBoxLayout, QWidget
+
+from app.canvas.style import KIND_LABELS
+from app.commands import respan, set_length_and_angle
+from app.document import ProjectDocument
+from app.panels.fields import FieldForm, Row
+from app.units import AREA, INERTIA, LENGTH, MODULUS, PERCENT, RATIO, STIFFNESS, THICKNESS, Quantity, degrees_of
+from core.errors import ModelError
+from core.model import (
+    CONCRETE_E,
+    STEEL_E,
+    BracedFrame,
+    BracePattern,
+    Element,
+    ElementKind,
+    LoadMethod,
+    Material,
+    MomentFrame,
+    Project,
+    RuleSet,
+    ShearWall,
+    Spring,
+    SystemType,
+    default_properties,
+)
+
+DEGREES = Quantity("°", 1.0, 2)
+ACCELERATION = Quantity("g", 1.0, 3)
+DRIFT = Quantity("", 1.0, 4)
+PLAIN = Quantity("", 1.0, 3)
+
+
+def _material_of(element: Element) -> str:
+    modulus = getattr(element.properties, "modulus", None)
+    if modulus == STEEL_E:
+        return Material.STEEL.value
+    if modulus == CONCRETE_E:
+        return Material.CONCRETE.value
+    return "custom"
+
+
+def _with_kind(element: Element, kind: ElementKind) -> Element:
+    if kind is element.kind:
+        return element
+    properties = default_properties(kind)
+    if isinstance(properties, Spring):
+        properties = Spring(storey_stiffness=properties.storey_stiffness * element.storey_count)
+    return dataclasses.replace(element, properties=properties)
+
+
+def _with_material(element: Element, material: str) -> Element:
+    if material == "custom" or material == _material_of(element):
+        return element
+    return dataclasses.replace(element, properties=default_properties(element.kind, Material(material)))
+
+
+def _with_angle(element: Element, angle: float) -> Element:
+    return set_length_and_angle(element, element.length, angle)
+
+
+def _angle(element: Element) -> float:
+    return degrees_of(element.end[0] - element.start[0], element.end[1] - element.start[1])
+
+
+def element_rows(project: Project, elements: list[Element]) -> list[Row]:
+    """Rows for the selected elements (coordinates only for a single one, kind fields only if
+    all share a kind)."""
+    single = len(elements) == 1
+    kinds = {e.kind for e in elements}
+    bottoms = [("Base", 0)] + [(lv.name, i) for i, lv in enumerate(project.levels[:-1], start=1)]
+    tops = [(lv.name, i) for i, lv in enumerate(project.levels, start=1)]
+    rows: list[Row] = []
+    if single:
+        rows.append(Row("Id", "id", "text"))
+    rows.append(
+        Row("Kind", kind="choice", choices=[(label, kind) for kind, label in KIND_LABELS.items()],
+            getter=lambda e: e.kind, setter=_with_kind,
+            tip="Changing the kind gives the element that kind's default sections.")
+    )
+    rows.append(Row("From level", kind="choice", choices=bottoms, getter=lambda e: e.bottom,
+                    setter=lambda e, v: respan(e, v, e.top), tip="The element stands on this level (Base = the foundation)."))
+    rows.append(Row("To level", kind="choice", choices=tops, getter=lambda e: e.top,
+                    setter=lambda e, v: respan(e, e.bottom, v), tip="The highest floor the element reaches."))
+    if single:
+        rows += [
+            Row("Start x", "start[0]", "number", LENGTH),
+            Row("Start y", "start[1]", "number", LENGTH),
+            Row("End x", "end[0]", "number", LENGTH),
+            Row("End y", "end[1]", "number", LENGTH),
+            Row("Length", kind="number", quantity=LENGTH, getter=lambda e: e.length,
+                setter=lambda e, v: set_length_and_angle(e, v, _angle(e)), tip="Changes the end point; the start stays."),
+            Row("Angle", kind="number", quantity=DEGREES, getter=_angle, setter=_with_angle,
+                tip="Direction from start to end, counter-clockwise from +x."),
+        ]
+    if len(kinds) != 1:
+        return rows
+    sample = elements[0].properties
+    materials = [("Steel", Material.STEEL.value), ("Concrete", Material.CONCRETE.value), ("Custom", "custom")]
+    if isinstance(sample, BracedFrame):
+        rows += [
+            Row("Brace pattern", "properties.pattern", "choice",
+                choices=[("X (two diagonals)", BracePattern.CROSS), ("Single diagonal", BracePattern.SINGLE),
+                         ("Chevron", BracePattern.CHEVRON)]),
+            Row("Bays", "properties.bays", "int"),
+            Row("Tension only", "properties.tension_only", "check", tip="Cross pattern: the compression brace buckles."),
+            Row("Brace area", "properties.brace_area", "number", AREA),
+            Row("Column area", "properties.column_area", "number", AREA),
+            Row("Beam area", "properties.beam_area", "number", AREA),
+            Row("Beam I", "properties.beam_inertia", "number", INERTIA, tip="Matters for the chevron pattern."),
+            Row("Modulus E", "properties.modulus", "number", MODULUS),
+        ]
+    elif isinstance(sample, ShearWall):
+        rows += [
+            Row("Material", kind="choice", choices=materials, getter=_material_of, setter=_with_material,
+                tip="Sets the material's typical wall (concrete 250 mm cracked, or a steel plate)."),
+            Row("Thickness", "properties.thickness", "number", THICKNESS),
+            Row("Modulus E", "properties.modulus", "number", MODULUS),
+            Row("Poisson ratio", "properties.poisson", "number", PLAIN),
+            Row("Stiffness factor", "properties.stiffness_factor", "number", PLAIN,
+                tip="Effective share of the gross stiffness after cracking (EN 1998-1 §4.3.1(7): 0.5)."),
+        ]
+    elif isinstance(sample, MomentFrame):
+        rows += [
+            Row("Material", kind="choice", choices=materials, getter=_material_of, setter=_with_material),
+            Row("Bays", "properties.bays", "int"),
+            Row("Column I", "properties.column_inertia", "number", INERTIA),
+            Row("Column area", "properties.column_area", "number", AREA),
+            Row("Beam I", "properties.beam_inertia", "number", INERTIA),
+            Row("Beam area", "properties.beam_area", "number", AREA),
+            Row("Modulus E", "properties.modulus", "number", MODULUS),
+            Row("Stiffness factor", "properties.stiffness_factor", "number", PLAIN),
+        ]
+    elif isinstance(sample, Spring):
+        rows.append(Row("Storey stiffness", "properties.storey_stiffness", "numbers", STIFFNESS,
+                        tip="One value per storey spanned, bottom storey first, separated by commas."))
+    return rows
+
+
+def project_rows(project: Project) -> list[Row]:
+    """Rows for the project's description and analysis settings (spectrum rows by load method)."""
+    s = project.settings
+    rows = [
+        Row("Project", "name", "text"),
+        Row("Job number", "job_number", "text"),
+        Row("Engineer", "engineer", "text"),
+        Row("Judge by", "settings.rule_set", "choice",
+            choices=[("EN 1998-1 limits", RuleSet.EN1998), ("ASCE 7 limits", RuleSet.ASCE7)],
+            tip="Which code's limits give pass / warn / fail; both sets of figures are computed."),
+        Row("Static load", "settings.load_method", "choice",
+            choices=[("EN 1998-1 spectrum", LoadMethod.EN1998), ("ASCE 7 spectrum", LoadMethod.ASCE7),
+                     ("Base shear coefficient", LoadMethod.COEFFICIENT)]),
+    ]
+    if s.load_method is LoadMethod.EN1998:
+        rows += [
+            Row("a_g", "settings.eurocode8.ag", "number", ACCELERATION, tip="Design ground acceleration on type A ground."),
+            Row("Ground type", "settings.eurocode8.ground_type", "choice", choices=[(g, g) for g in "ABCDE"]),
+            Row("Spectrum type", "settings.eurocode8.spectrum_type", "choice", choices=[("Type 1", 1), ("Type 2", 2)]),
+            Row("Behaviour factor q", "settings.eurocode8.behaviour_factor", "number", PLAIN),
+            Row("Lower bound β", "settings.eurocode8.lower_bound", "number", PLAIN),
+        ]
+    elif s.load_method is LoadMethod.ASCE7:
+        rows += [
+            Row("S_DS", "settings.asce7.sds", "number", ACCELERATION),
+            Row("S_D1", "settings.asce7.sd1", "number", ACCELERATION),
+            Row("S_1", "settings.asce7.s1", "number", ACCELERATION),
+            Row("T_L", "settings.asce7.long_period", "number", Quantity("s", 1.0, 2)),
+            Row("R", "settings.asce7.response_modification", "number", PLAIN),
+            Row("I_e", "settings.asce7.importance", "number", PLAIN),
+            Row("C_d", "settings.asce7.deflection_amplification", "number", PLAIN),
+        ]
+    else:
+        rows.append(Row("Base shear / weight", "settings.base_shear_coefficient", "number", PLAIN))
+    rows += [
+        Row("System", "settings.system_type", "choice",
+            choices=[("Steel moment frame", SystemType.STEEL_MOMENT), ("Concrete moment frame", SystemType.CONCRETE_MOMENT),
+                     ("Eccentric braces", SystemType.ECCENTRIC_BRACED), ("Other", SystemType.OTHER)],
+            tip="For the codes' approximate period formulas."),
+        Row("Accidental eccentricity", "settings.accidental_eccentricity", "number", PERCENT,
+            tip="Share of the plan dimension across the load (EN 1998-1 §4.3.2, ASCE 7 §12.8.4.2: 5 %)."),
+        Row("Drift limit", "settings.drift_limit", "number", DRIFT, tip="Storey drift over storey height."),
+        Row("Damping", "settings.damping_ratio", "number", PERCENT),
+        Row("Centred load cases", "settings.include_centred_case", "check", tip="Add the cases without eccentricity."),
+    ]
+    return rows
+
+
+class PropertiesPanel(QWidget):
+    """Fields of the selection, or of the project."""
+
+    def __init__(self, document: ProjectDocument, parent: QWidget | None = None) -> None:
+        super().__init__(parent)
+        self.document = document
+        self.heading = QLabel()
+        self.heading.setStyleSheet("font-weight: bold; padding: 2px 4px;")
+        self.heading.setWordWrap(True)
+        self.form = FieldForm()
+        self.form.apply = self._apply
+        scroll = QScrollArea()
+        scroll.setWidgetResizable(True)
+        scroll.setWidget(self.form)
+        scroll.setFrameShape(QScrollArea.Shape.NoFrame)
+        layout = QVBoxLayout(self)
+        layout.setContentsMargins(2, 2, 2, 2)
+        layout.addWidget(self.heading)
+        layout.addWidget(scroll, 1)
+        document.project_changed.connect(self.refresh)
+        document.selection_changed.connect(self.refresh)
+        self.refresh()
+
+    def selected(self) -> list[Element]:
+        project = self.document.project
+        return [project.element(i) for i in self.document.selection]
+
+    def refresh(self) -> None:
+        project = self.document.project
+        elements = self.selected()
+        if elements:
+            kinds = {KIND_LABELS[e.kind] for e in elements}
+            names = ", ".join(e.id for e in elements[:6]) + (" …" if len(elements) > 6 else "")
+            self.heading.setText(f"{' / '.join(sorted(kinds))}: {names}")
+            self.form.set_rows(element_rows(project, elements))
+            self.form.show_objects(elements)
+        else:
+            self.heading.setText("Project and analysis settings (select an element on the plan to edit it)")
+            self.form.set_rows(project_rows(project))
+            self.form.show_objects([project])
+
+    def _apply(self, changed: list) -> str | None:
+        document = self.document
+        if changed and isinstance(changed[0], Project):
+            document.apply(changed[0], "Edit project settings")
+            self.refresh()  # rows depend on the load method
+            return None
+        old_ids = list(document.selection)
+        by_old = dict(zip(old_ids, changed, strict=True))
+        project = document.project
+        try:
+            project = dataclasses.replace(project, elements=tuple(by_old.get(e.id, e) for e in project.elements))
+        except ModelError as error:
+            return error.message
+        label = ", ".join(old_ids) if len(old_ids) <= 3 else f"{len(old_ids)} elements"
+        document.apply(project, f"Edit {label}")
+        document.select([e.id for e in changed])
+        self.refresh()
+        return None
