@@ -22,7 +22,7 @@ from scipy.linalg import eigh
 
 from core.assembly import element_transformation
 from core.errors import AnalysisError
-from core.model import Element, Project
+from core.model import Element, Level, Project
 from core.results import FloatArray, FloorMass
 
 ZERO_LENGTH = 1e-6
@@ -45,8 +45,14 @@ def check_layout(project: Project) -> None:
         raise AnalysisError("the project has no levels: draw a floor outline first")
     _zero_length(project)
     _outside_outline(project)
+    checked: set[tuple[tuple[str, ...], float]] = set()
     for storey in range(1, len(project.levels) + 1):
-        _storey_layout(project, storey)
+        # Storeys with the same elements and plan size give the same answer: check each set once.
+        ids = tuple(e.id for e in project.elements_in_storey(storey))
+        key = (ids, _plan_size(project.levels[storey - 1]))
+        if key not in checked:
+            _storey_layout(project, storey)
+            checked.add(key)
 
 
 def check_stiffness(project: Project, floors: Sequence[FloorMass], K: FloatArray) -> None:
@@ -97,13 +103,15 @@ def _zero_length(project: Project) -> None:
 
 
 def _outside_outline(project: Project) -> None:
+    by_outline: dict[tuple[tuple[float, float], ...], shapely.Polygon] = {}
     regions = []
     for level in project.levels:
-        polygon = shapely.Polygon(level.outline)
-        size = math.dist(*np.reshape(polygon.bounds, (2, 2)))
-        region = polygon.buffer(1e-6 * size + 1e-9)  # a line on the outline's edge is inside
-        shapely.prepare(region)
-        regions.append(region)
+        if level.outline not in by_outline:
+            # Grown by a hair, so that a line on the outline's edge counts as inside.
+            region = shapely.Polygon(level.outline).buffer(1e-6 * _plan_size(level) + 1e-9)
+            shapely.prepare(region)
+            by_outline[level.outline] = region
+        regions.append(by_outline[level.outline])
     bad: list[tuple[Element, int]] = []
     for element in project.elements:
         line = shapely.LineString([element.start, element.end])
@@ -138,7 +146,7 @@ def _storey_layout(project: Project, storey: int) -> None:
     directions = np.array([e.direction for e in elements])
     c0, s0 = directions[0]
     cross = np.abs(directions[:, 0] * s0 - directions[:, 1] * c0)
-    size = max(math.dist(*np.reshape(shapely.Polygon(level.outline).bounds, (2, 2))), 1e-9)
+    size = max(_plan_size(level), 1e-9)
     if np.all(cross <= PARALLEL_TOLERANCE):
         normal = np.array([-s0, c0])
         offsets = np.array([normal @ np.asarray(e.start) for e in elements])
@@ -160,6 +168,12 @@ def _storey_layout(project: Project, storey: int) -> None:
             levels=moving,
             elements=ids,
         )
+
+
+def _plan_size(level: Level) -> float:
+    """Diagonal of the outline's bounding box, m: the length tolerances are relative to it."""
+    points = np.asarray(level.outline, dtype=float)
+    return float(np.hypot(*np.ptp(points, axis=0)))
 
 
 def _common_point(elements: Sequence[Element], size: float) -> FloatArray | None:

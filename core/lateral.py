@@ -232,7 +232,8 @@ def _element_demand(
     n = element.storey_count
     braces = np.zeros((n, 0))
     if isinstance(element.properties, BracedFrame) and len(cases):
-        influence = brace_influence(element.properties, element.length, heights)
+        # Rounded to 1 µm like the element cache, so a drag's rounding noise still hits the cache.
+        influence = brace_influence(element.properties, round(element.length, 6), heights)
         braces = np.abs(np.einsum("sbf,fc->csb", influence, line)).max(axis=0)
     return ElementDemand(
         element=element.id,

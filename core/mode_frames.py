@@ -258,14 +258,15 @@ def building_geometry(
     floors: Sequence[FloorMass],
     rigidity_centres: Sequence[Point | None] = (),
 ) -> BuildingGeometry:
-    """The drawn building: outlines, elements, centre markers, from the model and its floor masses.
-
-    ``rigidity_centres`` has one entry per floor (None where a floor has none); empty for none.
+    """The drawn building of an analysed project (one FloorMass per level): outlines, elements
+    and centre markers. ``rigidity_centres`` has one entry per floor (None where a floor has
+    none), or is empty when none are known.
     """
+    if not project.levels or len(floors) != len(project.levels):
+        raise ValueError(f"{len(floors)} floor masses for {len(project.levels)} levels")
     elevations = tuple(f.elevation for f in floors)
     n = len(floors)
-    all_points = np.concatenate([np.asarray(level.outline, dtype=float) for level in project.levels]) \
-        if project.levels else np.zeros((1, 2))
+    all_points = np.concatenate([np.asarray(level.outline, dtype=float) for level in project.levels])
     x_min, y_min = all_points.min(axis=0)
     x_max, y_max = all_points.max(axis=0)
     plan_size = float(max(x_max - x_min, y_max - y_min, 1e-6))
@@ -273,17 +274,16 @@ def building_geometry(
 
     outlines = AttachedPoints.join([
         AttachedPoints.of(ring_segments(ring), j, elevations[j])
-        for j, level in enumerate(project.levels[:n])
+        for j, level in enumerate(project.levels)
         for ring in (level.outline, *level.openings)
     ])
-    ground = (AttachedPoints.of(ring_segments(project.levels[0].outline), BASE, 0.0)
-              if project.levels else AttachedPoints.empty())
+    ground = AttachedPoints.of(ring_segments(project.levels[0].outline), BASE, 0.0)
 
     plan_elements: dict[ElementKind, AttachedPoints] = {}
     frame_lines: dict[ElementKind, AttachedPoints] = {}
     walls = []
     for kind in ElementKind:
-        of_kind = [e for e in project.elements if e.kind is kind and e.top <= n]
+        of_kind = [e for e in project.elements if e.kind is kind]
         plan_elements[kind] = AttachedPoints.join([
             AttachedPoints.of([e.start, e.end], j - 1, elevations[j - 1])
             for e in of_kind for j in range(e.bottom + 1, e.top + 1)
@@ -298,13 +298,15 @@ def building_geometry(
             frame_lines[kind] = collector.points()
 
     rigidity = list(rigidity_centres) if rigidity_centres else [None] * n
+    if len(rigidity) != n:
+        raise ValueError(f"{len(rigidity)} rigidity centres for {n} floors")
     mass_markers = AttachedPoints.join(
         [AttachedPoints.of(mass_centre_symbol(f.centre, marker), j, f.elevation)
          for j, f in enumerate(floors)]
     )
     rigidity_markers = AttachedPoints.join([
         AttachedPoints.of(rigidity_centre_symbol(c, marker), j, elevations[j])
-        for j, c in enumerate(rigidity[:n]) if c is not None
+        for j, c in enumerate(rigidity) if c is not None
     ])
     return BuildingGeometry(
         floor_count=n,
@@ -319,7 +321,7 @@ def building_geometry(
         mass_markers=mass_markers,
         rigidity_markers=rigidity_markers,
         mass_axis=_axis([f.centre for f in floors], elevations),
-        rigidity_axis=_axis(rigidity[:n], elevations),
+        rigidity_axis=_axis(rigidity, elevations),
     )
 
 

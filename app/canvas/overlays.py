@@ -92,16 +92,20 @@ def draw_overlay(painter: QPainter, data: OverlayData, to_device) -> None:
         painter.setPen(style.pen(style.MASS_CENTRE, 1.0, Qt.PenStyle.DashLine))
         painter.setBrush(QBrush(style.ACCIDENTAL_BAND))
         painter.drawRect(band)
+    # Labels go on the far side of each symbol along the line M → R, so they never cover it.
+    u = QPointF(-0.7071, -0.7071)
     if data.rigidity_centre is not None:
         r = to_device(data.rigidity_centre)
-        if QLineF(m, r).length() > 14:
+        distance = QLineF(m, r).length()
+        if distance > 14:
+            u = (r - m) / distance
             _arrow(painter, m, r)
         _rigidity_symbol(painter, r)
         dx = data.rigidity_centre[0] - data.mass_centre[0]
         dy = data.rigidity_centre[1] - data.mass_centre[1]
-        _label(painter, r + QPointF(12, 12), f"R  e = {math.hypot(dx, dy):.2f} m", style.RIGIDITY_CENTRE)
+        _label(painter, r, u, f"R  e = {math.hypot(dx, dy):.2f} m", style.RIGIDITY_CENTRE)
     _mass_symbol(painter, m)
-    _label(painter, m + QPointF(12, -12), "M", style.MASS_CENTRE)
+    _label(painter, m, -u, "M", style.MASS_CENTRE)
 
 
 def _mass_symbol(painter: QPainter, c: QPointF) -> None:
@@ -138,10 +142,14 @@ def _arrow(painter: QPainter, a: QPointF, b: QPointF) -> None:
     painter.drawPolygon(head)
 
 
-def _label(painter: QPainter, at: QPointF, text: str, colour: QColor) -> None:
+def _label(painter: QPainter, at: QPointF, u: QPointF, text: str, colour: QColor) -> None:
+    """A boxed label beside the symbol at ``at``, pushed out along the unit vector ``u``."""
     painter.setFont(LABEL_FONT)
     metrics = painter.fontMetrics()
-    box = QRectF(at.x(), at.y() - metrics.height() / 2, metrics.horizontalAdvance(text) + 8, metrics.height())
+    w, h = metrics.horizontalAdvance(text) + 8, metrics.height()
+    gap = 13.0
+    centre = at + u * gap + QPointF(u.x() * w / 2, u.y() * h / 2)
+    box = QRectF(centre.x() - w / 2, centre.y() - h / 2, w, h)
     painter.setPen(Qt.PenStyle.NoPen)
     painter.setBrush(QColor(255, 255, 255, 220))
     painter.drawRoundedRect(box, 3, 3)

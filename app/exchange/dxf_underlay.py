@@ -11,6 +11,7 @@ Qt-free, so tests and the command line can use it.
 
 from __future__ import annotations
 
+import dataclasses
 import itertools
 from collections import Counter
 from collections.abc import Iterator
@@ -81,6 +82,28 @@ class Underlay:
     units_from_header: bool
     skipped: tuple[tuple[str, int], ...]
     """Entity types left out, with their counts, most frequent first."""
+
+    @property
+    def bounds(self) -> tuple[float, float, float, float]:
+        """(x_min, y_min, x_max, y_max) of the segments, m."""
+        points = self.segments.reshape(-1, 2)
+        (x0, y0), (x1, y1) = points.min(axis=0), points.max(axis=0)
+        return float(x0), float(y0), float(x1), float(y1)
+
+    def shifted(self, dx: float, dy: float) -> Underlay:
+        """The same drawing moved by (dx, dy) m: for plans drawn far from the origin."""
+        move = np.array([dx, dy])
+        return dataclasses.replace(
+            self,
+            segments=frozen_array(self.segments + move),
+            closed=tuple(
+                ClosedPolyline(tuple((x + dx, y + dy) for x, y in c.ring), c.layer) for c in self.closed
+            ),
+        )
+
+    def segment_list(self) -> list[tuple[tuple[float, float], tuple[float, float]]]:
+        """The segments as plain ((x1, y1), (x2, y2)) tuples, as the editor's document takes them."""
+        return [((float(a[0]), float(a[1])), (float(b[0]), float(b[1]))) for a, b in self.segments]
 
 
 def units_from_header(doc: ezdxf.document.Drawing) -> tuple[str, float] | None:

@@ -12,7 +12,13 @@ from PySide6.QtCore import Qt, Signal
 from PySide6.QtGui import QBrush, QColor
 
 from app.canvas.style import pen
-from app.mode_views.palette import CHART_BACKGROUND, COMPONENT_COLOURS, KIND_BAR_COLOURS, SELECTED_BAR, TEXT
+from app.mode_views.palette import (
+    CHART_BACKGROUND,
+    COMPONENT_COLOURS,
+    KIND_BAR_COLOURS,
+    SELECTED_BAR,
+    TEXT,
+)
 from core.mode_frames import height_profile
 from core.results import ModeKind, Results
 
@@ -75,7 +81,9 @@ class PeriodChart(_ModeBarChart):
     def __init__(self, parent: object = None) -> None:
         super().__init__(parent)
         self.setObjectName("modePeriodChart")
-        _style(self.getPlotItem(), "mode", "period T (s)", "Periods (colour: x, y, torsion, mixed)")
+        words = " ".join(f"<span style='color:{KIND_BAR_COLOURS[kind].name()}'>&#9632; {kind.value}</span>"
+                         for kind in ModeKind)
+        _style(self.getPlotItem(), "mode", "period T (s)", f"Periods &nbsp; {words}")
         self._bars = pg.BarGraphItem(x=[], height=[], width=BAR_WIDTH)
         self.addItem(self._bars)
         self._periods: list[float] = []

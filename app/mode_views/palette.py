@@ -21,7 +21,7 @@ KIND_BAR_COLOURS = {
 
 UNDEFORMED = QColor(120, 116, 104, 90)
 """The building at rest, drawn faint beneath the motion."""
-OTHER_FLOORS = QColor(70, 68, 62, 110)
+OTHER_FLOORS = QColor(70, 68, 62, 80)
 MOVING_FLOOR = QColor("#2b2a27")
 SELECTED_BAR = QColor("#2b2a27")
 CHART_BACKGROUND = QColor("#fbfaf7")

@@ -23,8 +23,8 @@ from app.panels.verdicts import colour_of, storey_state
 from app.units import AREA_LOAD, LENGTH
 
 GROUND_PIXELS = 22
-TOP_PIXELS = 12
-CHIP_WIDTH, CHIP_HEIGHT = 58, 15
+TOP_PIXELS = 16
+CHIP_WIDTH, CHIP_HEIGHT = 44, 15
 
 
 class LevelStrip(QWidget):
@@ -109,6 +109,8 @@ class LevelStrip(QWidget):
             lines.append(f"mass {results.floors[number - 1].mass:.1f} t")
             lines.append(f"torsion ratio x {s.torsion_ratio[0]:.3f}, y {s.torsion_ratio[1]:.3f}")
             lines.append(f"drift ratio x {s.drift_ratio[0]:.4f}, y {s.drift_ratio[1]:.4f} (at the mass centre)")
+        lines.append("<small>Chips: worst torsion ratio and design drift ratio of the storey, coloured by the "
+                     "worst torsion and drift checks of the rule set (grey: not judged).</small>")
         return "<br>".join(lines)
 
     # ------------------------------------------------------------------ drawing
@@ -130,6 +132,8 @@ class LevelStrip(QWidget):
         flagged = set(error.levels) if error is not None else set()
         results = document.results
         base = bands[0].bottom()
+        if results is not None:
+            self._draw_header(painter, bands[0])
         painter.setPen(QPen(style.FLOOR_EDGE, 1.0))
         for x in range(0, self.width() + 12, 8):
             painter.drawLine(QPointF(x, base + 12), QPointF(x + 8, base + 4))
@@ -161,7 +165,7 @@ class LevelStrip(QWidget):
         font.setBold(current)
         painter.setFont(font)
         painter.setPen(style.FLOOR_EDGE)
-        text_box = band.adjusted(12, 3, -CHIP_WIDTH - 16, -2)
+        text_box = band.adjusted(12, 3, -2 * CHIP_WIDTH - 16, -2)
         if band.height() >= 34:
             painter.drawText(text_box, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignTop, name)
             painter.setFont(QFont("DejaVu Sans", 8))
@@ -170,26 +174,29 @@ class LevelStrip(QWidget):
         else:
             painter.drawText(text_box, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, f"{name} · {height:.2f} m")
 
-    def _draw_chips(self, painter: QPainter, band: QRectF, state) -> None:
-        chips = [
-            (f"TR {state.torsion_ratio:.2f}", state.torsion_status),
-            (f"Δ {100 * state.drift_ratio:.2f}%", state.drift_status),
-        ]
-        gap = 2.0
-        total = len(chips) * CHIP_HEIGHT + gap
-        compact = band.height() < total + 4
+    def _chip_boxes(self, band: QRectF) -> list[QRectF]:
+        """The torsion and drift chips of a band, side by side at its right end."""
+        height = min(CHIP_HEIGHT, band.height() - 4)
+        top = band.center().y() - height / 2
+        right = band.right() - 10
+        return [QRectF(right - 2 * CHIP_WIDTH - 3, top, CHIP_WIDTH, height), QRectF(right - CHIP_WIDTH, top, CHIP_WIDTH, height)]
+
+    def _draw_header(self, painter: QPainter, band: QRectF) -> None:
         painter.setFont(QFont("DejaVu Sans", 7))
-        x = band.right() - CHIP_WIDTH - 10
-        y = band.center().y() - (CHIP_HEIGHT / 2 if compact else total / 2)
-        for i, (text, status) in enumerate(chips):
-            width = CHIP_WIDTH / 2 - 1 if compact else CHIP_WIDTH
-            box = QRectF(x + (i * (width + 2) if compact else 0), y + (0 if compact else i * (CHIP_HEIGHT + gap)), width, CHIP_HEIGHT)
-            colour = colour_of(status)
+        painter.setPen(QColor("#6d695f"))
+        for box, text in zip(self._chip_boxes(band), ("torsion", "drift"), strict=True):
+            painter.drawText(QRectF(box.left() - 6, 0, box.width() + 12, TOP_PIXELS), Qt.AlignmentFlag.AlignCenter, text)
+
+    def _draw_chips(self, painter: QPainter, band: QRectF, state) -> None:
+        texts = [f"{state.torsion_ratio:.2f}", f"{100 * state.drift_ratio:.2f} %"]
+        statuses = [state.torsion_status, state.drift_status]
+        painter.setFont(QFont("DejaVu Sans", 7))
+        for box, text, status in zip(self._chip_boxes(band), texts, statuses, strict=True):
             painter.setPen(Qt.PenStyle.NoPen)
-            painter.setBrush(colour)
+            painter.setBrush(colour_of(status))
             painter.drawRoundedRect(box, 4, 4)
             painter.setPen(QColor("white"))
-            painter.drawText(box, Qt.AlignmentFlag.AlignCenter, text if not compact else text.split()[0])
+            painter.drawText(box, Qt.AlignmentFlag.AlignCenter, text)
 
 
 def level_rows(document: ProjectDocument, number: int) -> list[Row]:
@@ -228,8 +235,6 @@ class LevelsPanel(QWidget):
         buttons = QHBoxLayout()
         buttons.setSpacing(2)
         for action in actions:
-            if action.isSeparator():
-                continue
             button = QToolButton()
             button.setDefaultAction(action)
             button.setAutoRaise(True)

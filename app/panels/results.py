@@ -19,6 +19,7 @@ from PySide6.QtWidgets import (
     QHeaderView,
     QLabel,
     QPushButton,
+    QScrollArea,
     QTableView,
     QTabWidget,
     QVBoxLayout,
@@ -234,12 +235,20 @@ class ReadoutsPanel(QWidget):
             label.setWordWrap(True)
             label.setTextFormat(Qt.TextFormat.RichText)
             label.setAlignment(Qt.AlignmentFlag.AlignTop | Qt.AlignmentFlag.AlignLeft)
+        body = QWidget()
+        column = QVBoxLayout(body)
+        column.setContentsMargins(0, 0, 0, 0)
+        for label in (self.torsion, self.periods, self.checks):
+            column.addWidget(label)
+        column.addStretch(1)
+        scroll = QScrollArea()
+        scroll.setWidgetResizable(True)
+        scroll.setFrameShape(QScrollArea.Shape.NoFrame)
+        scroll.setWidget(body)
         layout = QVBoxLayout(self)
         layout.setContentsMargins(4, 4, 4, 4)
         layout.addWidget(self.caution)
-        layout.addWidget(self.torsion)
-        layout.addWidget(self.periods)
-        layout.addWidget(self.checks, 1)
+        layout.addWidget(scroll, 1)
         document.results_changed.connect(self.refresh)
         self.refresh()
 

@@ -36,7 +36,9 @@ def timoshenko_stiffness(length: float) -> float:
     """Tip stiffness of a cracked cantilever wall (EN 1998-1 §4.3.1(7) factor on EI and GA)."""
     E = WALL.stiffness_factor * WALL.modulus
     G = E / (2 * (1 + WALL.poisson))
-    return 1.0 / (H**3 / (3 * E * WALL.thickness * length**3 / 12) + H / (5 / 6 * G * WALL.thickness * length))
+    return 1.0 / (
+        H**3 / (3 * E * WALL.thickness * length**3 / 12) + H / (5 / 6 * G * WALL.thickness * length)
+    )
 
 
 Y_WALLS = {"W1": (0.0, 3.0, 6.0), "W2": (30.0, 6.0, 4.0), "W5": (22.0, 8.0, 6.0)}  # x, y start, length
