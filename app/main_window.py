@@ -255,10 +255,10 @@ class MainWindow(QMainWindow):
         self.readouts = ReadoutsPanel(self.document)
         self.properties = PropertiesPanel(self.document)
         self.tables = TablesPanel(self.document)
-        self.add_panel(self.levels_panel, "Levels", "levelsPanel", left)
-        self.add_panel(self.readouts, "Live results", "liveResultsPanel", right)
-        self.add_panel(self.properties, "Properties", "propertiesPanel", right)
-        self.add_panel(self.tables, "Tables", "tablesPanel", bottom)
+        self.levels_dock = self.add_panel(self.levels_panel, "Levels", "levelsPanel", left)
+        self.readouts_dock = self.add_panel(self.readouts, "Live results", "liveResultsPanel", right)
+        self.properties_dock = self.add_panel(self.properties, "Properties", "propertiesPanel", right)
+        self.tables_dock = self.add_panel(self.tables, "Tables", "tablesPanel", bottom)
         self.setCorner(Qt.Corner.BottomLeftCorner, left)
         self.setCorner(Qt.Corner.BottomRightCorner, right)
         self.resize(1500, 950)
@@ -320,10 +320,19 @@ class MainWindow(QMainWindow):
         self.setWindowTitle(f"{document.project.name} — {where}[*] — Poise")
         self.setWindowModified(document.is_modified)
 
+    def _default_sizes(self) -> None:
+        """Give the plan most of the window: side columns and the bottom strip at modest sizes."""
+        horizontal, vertical = Qt.Orientation.Horizontal, Qt.Orientation.Vertical
+        self.resizeDocks([self.levels_dock, self.readouts_dock], [250, 360], horizontal)
+        self.resizeDocks([self.readouts_dock, self.properties_dock], [560, 440], vertical)
+        self.resizeDocks([self.tables_dock], [max(240, self.height() // 3)], vertical)
+
     def showEvent(self, event: QShowEvent) -> None:
         super().showEvent(event)
         if not self._fitted:
             self._fitted = True
+            if not self._layout_restored:
+                self._default_sizes()
             QTimer.singleShot(0, self.plan_view.fit)
 
     # ------------------------------------------------------------------ element commands
@@ -530,8 +539,7 @@ class MainWindow(QMainWindow):
         if geometry is not None:
             self.restoreGeometry(geometry)
         state = s.value("window/state")
-        if state is not None:
-            self.restoreState(state)
+        self._layout_restored = state is not None and self.restoreState(state)
         spacing = float(s.value("canvas/grid_spacing", 1.0))
         self.tool_options.grid.setValue(spacing)
         self.snap_action.setChecked(s.value("canvas/snap", True, type=bool))
