@@ -328,7 +328,12 @@ def _describe(number: int, polyline: ClosedPolyline) -> str:
 def _insert_before_quit(menu: QMenu, actions: list[QAction]) -> None:
     """Add ``actions`` as one group above the menu's Quit entry (or at its end)."""
     quit_key = QKeySequence(QKeySequence.StandardKey.Quit)
-    anchor = next((a for a in menu.actions() if not quit_key.isEmpty() and a.shortcut() == quit_key), None)
+
+    def is_quit(action: QAction) -> bool:
+        by_key = not quit_key.isEmpty() and action.shortcut() == quit_key
+        return by_key or action.text().replace("&", "").lower() in ("quit", "exit")
+
+    anchor = next((a for a in menu.actions() if is_quit(a)), None)
     if anchor is None:
         menu.addSeparator()
         menu.addActions(actions)
