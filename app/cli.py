@@ -59,6 +59,10 @@ def main(argv: Sequence[str] | None = None) -> int:
     try:
         if args and args[0] == "analyse":
             return run_analyse(_analyse_parser().parse_args(args[1:]))
+        if args and args[0] == "sheet":
+            from app.sheet_cli import run_sheet, sheet_parser
+
+            return run_sheet(sheet_parser().parse_args(args[1:]))
         arguments = _editor_parser().parse_args(args)
         if arguments.file is not None and not arguments.file.is_file():
             raise ModelError("", f"no such project file: {arguments.file}")

@@ -243,13 +243,15 @@ def unique_level_name(project: Project, stem: str = "Level") -> str:
     return f"{stem} {n}"
 
 
-def insert_level(project: Project, position: int, level: Level, extend: Iterable[str] = ()) -> Project:
+def insert_level(
+    project: Project, position: int, level: Level, extend: Iterable[str] = (), copy_storey_below: bool = False
+) -> Project:
     """``level`` inserted as level ``position + 1`` (0 ≤ position ≤ number of levels).
 
     Level indices above the new floor move up by one, so elements that pass the new floor span
     the new storey too. Elements named in ``extend`` that end at the floor below it are carried
-    up to the new floor. A spring gets the stiffness of the storey the new one splits (or of its
-    top storey when extended).
+    up to the new floor. A spring's new storey takes the stiffness of the storey it splits, or,
+    with ``copy_storey_below``, of the storey under it (the one being copied).
     """
     extend = set(extend)
     levels = list(project.levels)
@@ -262,8 +264,9 @@ def insert_level(project: Project, position: int, level: Level, extend: Iterable
         properties = e.properties
         if isinstance(properties, Spring) and top - bottom != e.top - e.bottom:
             values = list(properties.storey_stiffness)
-            split = min(max(position - e.bottom, 0), len(values) - 1)
-            values.insert(split, values[split])
+            source = position - e.bottom - (1 if copy_storey_below else 0)
+            source = min(max(source, 0), len(values) - 1)
+            values.insert(source, values[source])
             properties = Spring(storey_stiffness=tuple(values))
         elements.append(dataclasses.replace(e, bottom=bottom, top=top, properties=properties))
     return dataclasses.replace(project, levels=tuple(levels), elements=tuple(elements))
@@ -291,7 +294,7 @@ def duplicate_level(project: Project, level_number: int) -> Project:
     template = project.levels[level_number - 1]
     copy = dataclasses.replace(template, name=unique_level_name(project))
     reaching = [e.id for e in project.elements if e.top == level_number and e.bottom < level_number]
-    return insert_level(project, level_number, copy, extend=reaching)
+    return insert_level(project, level_number, copy, extend=reaching, copy_storey_below=True)
 
 
 def delete_level(project: Project, level_number: int) -> tuple[Project, list[str]]:

@@ -33,10 +33,12 @@ from app import commands
 from app.canvas.scene import PlanScene
 from app.canvas.view import PlanView
 from app.document import ProjectDocument
+from app.exchange.actions import install as install_exchange
 from app.mode_views.panel import install as install_mode_views
 from app.panels.levels import LevelsPanel
 from app.panels.properties import PropertiesPanel
-from app.panels.results import CAUTION, ReadoutsPanel, TablesPanel
+from app.panels.readouts import ReadoutsPanel
+from app.panels.results import CAUTION, TablesPanel
 from app.panels.status import StatusPanel
 from app.panels.tool_options import ToolOptions
 from app.resources import DEFAULT_SAMPLE, icon_path, sample_path, sample_projects
@@ -86,6 +88,7 @@ class MainWindow(QMainWindow):
         self._make_panels()
         self._connect()
         install_mode_views(self)
+        install_exchange(self)
         self._stack_bottom_panels()
         self._restore_settings()
         self.set_tool("select")
@@ -159,8 +162,10 @@ class MainWindow(QMainWindow):
         self.quit_action = self._action("&Quit", self.close, key.Quit)
         self.undo_action = self.document.undo_stack.createUndoAction(self, "&Undo")
         self.undo_action.setShortcut(key.Undo)
+        self.undo_action.setIcon(icon("undo"))
         self.redo_action = self.document.undo_stack.createRedoAction(self, "&Redo")
         self.redo_action.setShortcut(key.Redo)
+        self.redo_action.setIcon(icon("redo"))
         self.delete_action = self._action("&Delete elements", self.delete_selection, key.Delete)
         self.rotate_action = self._action("&Rotate 90°", self.rotate_selection, "R", "rotate",
                                           "Turn the selected elements a quarter turn counter-clockwise")
@@ -232,6 +237,7 @@ class MainWindow(QMainWindow):
 
         main = QToolBar("Main")
         main.setObjectName("mainToolbar")
+        main.setToolButtonStyle(Qt.ToolButtonStyle.ToolButtonIconOnly)
         main.addActions([self.undo_action, self.redo_action])
         main.addSeparator()
         main.addActions([self.fit_action, self.snap_action, self.rotate_action, self.copy_levels_action])
@@ -273,11 +279,11 @@ class MainWindow(QMainWindow):
 
     def _connect(self) -> None:
         document = self.document
-        document.undo_stack.cleanChanged.connect(lambda _clean: self._update_title())
+        document.undo_stack.cleanChanged.connect(self._update_title)
         document.project_changed.connect(self._update_title)
         document.project_changed.connect(self._update_enabled)
         document.selection_changed.connect(self._update_enabled)
-        document.current_level_changed.connect(lambda _n: self._update_enabled())
+        document.current_level_changed.connect(self._update_enabled)
         document.file_path_changed.connect(self._update_title)
         view = self.plan_view
         view.cursor_moved.connect(self.status.show_cursor)
@@ -298,13 +304,13 @@ class MainWindow(QMainWindow):
 
     def _grid_toggled(self) -> None:
         self.plan_view.grid_visible = self.grid_action.isChecked()
-        self.plan_view.viewport().update()
+        self.plan_view.redraw_background()
 
     def _snap_toggled(self) -> None:
         self.plan_view.snap_enabled = self.status.snap_enabled = self.snap_action.isChecked()
         self.status.show_snap(None)
 
-    def _update_enabled(self) -> None:
+    def _update_enabled(self, *_: object) -> None:
         project = self.document.project
         has_levels = bool(project.levels)
         selected = bool(self.document.selection)
@@ -314,7 +320,7 @@ class MainWindow(QMainWindow):
                        self.delete_level_action, self.select_all_action):
             action.setEnabled(has_levels)
 
-    def _update_title(self) -> None:
+    def _update_title(self, *_: object) -> None:
         document = self.document
         where = document.file_path.name if document.file_path else "not saved yet"
         self.setWindowTitle(f"{document.project.name} — {where}[*] — Poise")
@@ -323,7 +329,7 @@ class MainWindow(QMainWindow):
     def _default_sizes(self) -> None:
         """Give the plan most of the window: side columns and the bottom strip at modest sizes."""
         horizontal, vertical = Qt.Orientation.Horizontal, Qt.Orientation.Vertical
-        self.resizeDocks([self.levels_dock, self.readouts_dock], [250, 360], horizontal)
+        self.resizeDocks([self.levels_dock, self.readouts_dock], [275, 360], horizontal)
         self.resizeDocks([self.readouts_dock, self.properties_dock], [560, 440], vertical)
         self.resizeDocks([self.tables_dock], [max(240, self.height() // 3)], vertical)
 

@@ -19,7 +19,7 @@ from PySide6.QtGui import QMouseEvent
 from PySide6.QtWidgets import QApplication
 
 from app.document import ProjectDocument
-from app.mode_views.clock import STEP_FRACTION
+from app.mode_views.clock import STEP_FRACTION, ModeClock
 from app.mode_views.panel import ModeViewsPanel, rigidity_centres
 from app.resources import sample_path
 from core.mode_frames import LayerMotion, building_geometry, peak_scale
@@ -96,7 +96,9 @@ def test_choosing_a_mode_in_the_panel_goes_through_the_document(qtbot):
 
 def test_editing_the_plan_while_animating_keeps_it_running(qtbot):
     document, panel = _open(qtbot, "residential_8_storey_walls")
-    timers = len(panel.findChildren(QTimer))
+    clocks = panel.findChildren(ModeClock)
+    timers = [t for clock in clocks for t in clock.findChildren(QTimer)]
+    assert len(clocks) == 1 and len(timers) == 1
     original = document.project.elements[0]
     panel.clock.play()
     assert panel.clock.running
@@ -110,7 +112,7 @@ def test_editing_the_plan_while_animating_keeps_it_running(qtbot):
     document.flush_analysis()
     assert document.results is not None
     assert panel.clock.running and panel.clock.playing
-    assert len(panel.findChildren(QTimer)) == timers
+    assert panel.findChildren(ModeClock) == clocks and clocks[0].findChildren(QTimer) == timers  # nothing new
     frames = panel.building.frames_drawn
     qtbot.waitUntil(lambda: panel.building.frames_drawn > frames + 3, timeout=3000)
     # The views show the edited building: at rest, the moved wall's plan line starts 3 m further on.
@@ -148,7 +150,7 @@ def test_play_pause_step_pace_and_amplitude(qtbot):
     assert panel.clock.phase == pytest.approx(2 * math.pi * STEP_FRACTION)
     panel.pace_slider.setValue(35)
     assert panel.clock.cycle_seconds == pytest.approx(3.5)
-    assert panel.pace_label.text().startswith("3.5 s per cycle")
+    assert panel.pace_label.text() == "3.5 s/cycle"
     # The amplitude sets the largest outline motion at the peak. It is set on the linear motion
     # u + α ẑ×r; the drawn rigid turn differs from that by at most r(1 − cos α) + r(α − sin α),
     # about r·α²/2: a few per cent at this amplitude.
@@ -156,7 +158,7 @@ def test_play_pause_step_pace_and_amplitude(qtbot):
     panel.clock.set_phase(math.pi / 2)
     geometry = panel._geometry
     peak = 0.20 * geometry.plan_size
-    assert f"{peak:.2f} m peak" in panel.amplitude_label.text()
+    assert panel.amplitude_label.text() == f"20 % = {peak:.2f} m"
     rest = panel.building._motion.undeformed()["floors"]
     drawn = panel.building._motion.plan(math.pi / 2)["floors"] - rest
     largest = float(np.max(np.hypot(drawn[:, 0], drawn[:, 1])))
@@ -181,7 +183,7 @@ def test_turning_the_3d_view_with_the_mouse(qtbot):
     send(QMouseEvent.Type.MouseButtonRelease, centre + QPoint(40, 20), Qt.MouseButton.NoButton)
     assert view.view.azimuth < before.azimuth
     assert view.view.elevation > before.elevation
-    assert f"azimuth {math.degrees(view.view.azimuth):.0f}°" in view.getPlotItem().titleLabel.text
+    assert f"{math.degrees(view.view.azimuth):.0f}°, " in view.getPlotItem().titleLabel.text
 
 
 def test_an_unstable_layout_shows_the_diagnostic(qtbot):
@@ -230,3 +232,55 @@ def test_the_plan_starts_on_the_roof_and_follows_the_edited_level(qtbot):
     np.testing.assert_allclose(_curve(panel.plan._rest_outlines), panel._geometry.outlines.xy)
     panel.clock.set_phase(0.0)
     np.testing.assert_allclose(_curve(panel.plan._floor), panel._geometry.outlines.on_floor(1).xy)
+
+
+def test_through_the_main_window(qtbot, tmp_path):
+    """Installed by the main window: the modes table drives it, hiding its dock pauses it, and a
+    wall dragged on the plan while the motion runs shows up in the motion."""
+    from PySide6.QtWidgets import QDockWidget
+
+    from app.resources import sample_path as bundled
+    from tests.test_gui_support import drag, make_window, settle
+
+    window = make_window(qtbot, tmp_path)
+    window.open_sample(bundled("residential_8_storey_walls"), confirm=False)
+    settle(window)
+    panel = window.findChild(ModeViewsPanel)
+    dock = window.findChild(QDockWidget, "modeShapesPanel")
+    assert dock is not None and dock.widget() is panel
+    assert panel.play_action in window.menu("modes").actions()
+    dock.raise_()
+    QApplication.processEvents()
+    panel.play_action.trigger()
+    assert panel.clock.running
+
+    window.tables_dock.raise_()  # the tables share the bottom strip as a tab: the motion stops
+    window.tables.tabs.setCurrentWidget(window.tables.modes)
+    QApplication.processEvents()
+    assert not panel.clock.running and panel.clock.playing
+    table = window.tables.modes
+    qtbot.mouseClick(table.viewport(), Qt.MouseButton.LeftButton, pos=table.visualRect(table.model().index(2, 0)).center())
+    assert window.document.current_mode == 3
+    dock.raise_()
+    QApplication.processEvents()
+    assert panel.clock.running
+    assert panel.mode_number == 3 and panel.periods.selected == 3 and panel.shape.shown_mode == 3
+
+    window.document.set_current_level(2)
+    window.document.set_current_level(1)  # the editor is on level 1: the motion plan follows
+    window.set_tool("select")
+    wall = window.document.project.element("W1")  # (20, 0)–(26, 0)
+    drag(window, (23.0, 0.0), (23.0, 2.0))
+    moved = window.document.project.element("W1")
+    assert moved.start[1] == pytest.approx(wall.start[1] + 2.0, abs=0.5)
+    frames = panel.plan.frames_drawn
+    qtbot.waitUntil(lambda: panel.plan.frames_drawn > frames + 3, timeout=3000)
+    assert panel.clock.running and panel.floor_index == 0
+    panel.clock.pause()
+    panel.clock.set_phase(0.0)
+    walls = _curve(panel.plan._elements[moved.kind])
+    assert np.any(np.all(np.isclose(walls, moved.start), axis=1))
+    SCREENSHOTS.mkdir(exist_ok=True)
+    panel.clock.set_phase(math.pi / 2)
+    QApplication.processEvents()
+    window.grab().save(str(SCREENSHOTS / "modes_main_window.png"))

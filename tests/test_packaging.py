@@ -20,6 +20,18 @@ print(len(r.sample_projects()))
 """
 
 
+def test_every_package_is_listed_for_installation():
+    """setuptools is given an explicit package list (two top-level packages); a package missing from
+    it would be left out of an installed copy."""
+    import tomllib
+
+    listed = set(tomllib.loads((REPO / "pyproject.toml").read_text())["tool"]["setuptools"]["packages"])
+    found = {
+        ".".join(p.parent.relative_to(REPO).parts) for top in ("app", "core") for p in (REPO / top).rglob("__init__.py")
+    }
+    assert found <= listed
+
+
 def test_resources_found_from_the_source_tree():
     assert any(icons_folder().glob("*.svg"))
     assert len(sample_projects()) >= 3

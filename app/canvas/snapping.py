@@ -110,12 +110,36 @@ def snap_point(
             q = nearest_on_segment(raw, a, b)
             d = math.dist(raw, q)
             if d <= tolerance and (best is None or d < best[0]):
+                if grid_spacing:
+                    q = grid_crossing(q, a, b, grid_spacing, tolerance)
                 best = (d, Snap(q, kind, label))
         if best is not None:
             return best[1]
     if grid_spacing:
         return Snap(snap_to_grid(raw, grid_spacing), SnapKind.GRID, "grid")
     return Snap(raw, SnapKind.FREE, "")
+
+
+def grid_crossing(q: Point, a: Point, b: Point, spacing: float, tolerance: float) -> Point:
+    """The point of segment ``a``–``b`` nearest ``q`` where it meets a grid line (so a point
+    caught on an edge still lands on round coordinates), or ``q`` if none is within ``tolerance``."""
+    candidates = []
+    for axis in (0, 1):
+        line = round(q[axis] / spacing) * spacing
+        span = b[axis] - a[axis]
+        if abs(span) > 1e-12:
+            t = (line - a[axis]) / span
+            if 0.0 <= t <= 1.0:
+                candidates.append((a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1])))
+        elif abs(a[axis] - line) < 1e-9:  # the segment runs along this grid line: round the other way
+            other = 1 - axis
+            lo, hi = sorted((a[other], b[other]))
+            value = min(max(round(q[other] / spacing) * spacing, lo), hi)
+            point = [0.0, 0.0]
+            point[axis], point[other] = a[axis], value
+            candidates.append((point[0], point[1]))
+    near = [c for c in candidates if math.dist(c, q) <= tolerance]
+    return min(near, key=lambda c: math.dist(c, q)) if near else q
 
 
 def constrain_orthogonal(anchor: Point, p: Point) -> Point:

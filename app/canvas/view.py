@@ -53,6 +53,7 @@ class PlanView(QGraphicsView):
         self._space_down = False
         self.setRenderHint(QPainter.RenderHint.Antialiasing)
         self.setViewportUpdateMode(QGraphicsView.ViewportUpdateMode.FullViewportUpdate)
+        self.setCacheMode(QGraphicsView.CacheModeFlag.CacheBackground)  # the grid; redrawn on zoom and pan
         self.setTransformationAnchor(QGraphicsView.ViewportAnchor.AnchorUnderMouse)
         self.setResizeAnchor(QGraphicsView.ViewportAnchor.AnchorViewCenter)
         self.setHorizontalScrollBarPolicy(Qt.ScrollBarPolicy.ScrollBarAlwaysOff)
@@ -131,7 +132,13 @@ class PlanView(QGraphicsView):
 
     # ------------------------------------------------------------------ zoom and pan
 
+    def redraw_background(self) -> None:
+        """Drop the cached grid (after its spacing or visibility changed)."""
+        self.resetCachedContent()
+        self.viewport().update()
+
     def _zoom_changed(self) -> None:
+        self.resetCachedContent()
         self.plan_scene.set_pixel(self.pixel)
         self._targets_key = None
         self.viewport().update()

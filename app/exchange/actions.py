@@ -71,7 +71,7 @@ class ExchangeActions(QObject):
         """Run an action; any failure becomes a message box (the GUI boundary: never a crash)."""
         try:
             slot()
-        except Exception as error:  # noqa: BLE001 - the last line of defence of a menu action
+        except Exception as error:  # the last line of defence of a menu action
             name = title.replace("&", "").rstrip("…")
             detail = str(error) or type(error).__name__
             QMessageBox.warning(self.window, name, f"{name} did not complete:\n{detail}")

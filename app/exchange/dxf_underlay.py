@@ -192,14 +192,20 @@ def read_underlay(path: str | Path, metres_per_unit: float | None = None) -> Und
 
 
 def _read_document(path: Path) -> ezdxf.document.Drawing:
+    """The drawing, read strictly, else by ezdxf's recovery reader if that finds any entities
+    (drawings written by other programs are often slightly off the standard)."""
     if not path.is_file():
         raise ExchangeError(f"{path}: no such file")
     try:
+        return ezdxf.readfile(path)
+    except Exception as strict:  # any parser failure on a foreign file: try to recover, else unreadable
+        reason = str(strict).removeprefix("DXFStructureError: ") or type(strict).__name__
+    try:
         doc, _auditor = recover.readfile(path)
-    except ezdxf.DXFStructureError as error:
-        raise ExchangeError(f"{path.name}: not a readable DXF file ({error})") from error
-    except Exception as error:
-        raise ExchangeError(f"{path.name}: not a readable DXF file ({type(error).__name__}: {error})") from error
+    except Exception:  # the recovery reader failed too: the strict reason says more
+        doc = None
+    if doc is None or len(doc.modelspace()) == 0:
+        raise ExchangeError(f"{path.name}: not a readable DXF file ({reason})")
     return doc
 
 

@@ -91,6 +91,7 @@ class BuildingMotionView(pg.PlotWidget):
         self._origin: Point3 = (0.0, 0.0, 0.0)
         self._phase = 0.0
         self._reach = 1.0
+        self._title = ""
         self.frames_drawn = 0
 
     def show_mode(
@@ -144,11 +145,11 @@ class BuildingMotionView(pg.PlotWidget):
         self.set_view(self.view.rotated(-dx * k, dy * k))
 
     def _update_title(self) -> None:
-        self.getPlotItem().setTitle(
-            f"Building in 3D: drag to turn (azimuth {math.degrees(self.view.azimuth):.0f}°, "
-            f"elevation {math.degrees(self.view.elevation):.0f}°)",
-            size="9pt",
-        )
+        """Short, for narrow strips: the view's azimuth and elevation in degrees."""
+        title = f"3D · drag to turn · {math.degrees(self.view.azimuth):.0f}°, {math.degrees(self.view.elevation):.0f}°"
+        if title != self._title:
+            self._title = title
+            self.getPlotItem().setTitle(title, size="9pt")
 
     def _draw_still(self) -> None:
         """The parts that move only when the view turns: ground, building at rest, axis arrows."""

@@ -12,12 +12,14 @@ from PySide6.QtCore import Qt, Signal
 from PySide6.QtGui import QBrush, QColor
 
 from app.canvas.style import pen
+from app.mode_views.items import SegmentLines
 from app.mode_views.palette import (
     CHART_BACKGROUND,
     COMPONENT_COLOURS,
     KIND_BAR_COLOURS,
     SELECTED_BAR,
     TEXT,
+    colour_key,
 )
 from core.mode_frames import height_profile
 from core.results import ModeKind, Results
@@ -26,9 +28,13 @@ BAR_WIDTH = 0.7
 TARGET_MASS_RATIO = 0.9
 """Cumulative effective mass the modes considered should reach: 90 % of the total
 (EN 1998-1 §4.3.3.3.1(3), from memory: see shared references)."""
-HEADROOM = 1.3
-"""Top of the mass chart over its tallest figure: room for the legend above the 100 % lines."""
-COMPONENT_NAMES = ("x", "y", "rotation")
+HEADROOM = 1.08
+"""Top of the mass chart over its tallest figure, so the 100 % lines stay clear of the frame."""
+COMPONENT_NAMES = ("x", "y", "θ")
+KIND_SYMBOLS = {ModeKind.X: "x", ModeKind.Y: "y", ModeKind.TORSION: "θ", ModeKind.MIXED: "mixed"}
+SHAPE_NAMES = ("u_x", "u_y", "θ·l_s")
+FLOOR_TICK = 0.03
+"""Half-length of the floor strokes on the shape chart, in its relative units."""
 
 
 def _style(plot: pg.PlotItem, bottom: str, left: str, title: str) -> None:
@@ -81,9 +87,8 @@ class PeriodChart(_ModeBarChart):
     def __init__(self, parent: object = None) -> None:
         super().__init__(parent)
         self.setObjectName("modePeriodChart")
-        words = " ".join(f"<span style='color:{KIND_BAR_COLOURS[kind].name()}'>&#9632; {kind.value}</span>"
-                         for kind in ModeKind)
-        _style(self.getPlotItem(), "mode", "period T (s)", f"Periods &nbsp; {words}")
+        key = colour_key(tuple((KIND_SYMBOLS[kind], KIND_BAR_COLOURS[kind]) for kind in ModeKind))
+        _style(self.getPlotItem(), "mode", "period T (s)", f"Periods {key}")
         self._bars = pg.BarGraphItem(x=[], height=[], width=BAR_WIDTH)
         self.addItem(self._bars)
         self._periods: list[float] = []
@@ -121,16 +126,15 @@ class MassRatioChart(_ModeBarChart):
         super().__init__(parent)
         self.setObjectName("modeMassChart")
         plot = self.getPlotItem()
-        _style(plot, "mode", "share of total mass", "Effective mass: per mode (bars), cumulative (lines)")
-        plot.addLegend(offset=(-4, 4), labelTextSize="8pt", colCount=3)
+        key = colour_key(tuple(zip(COMPONENT_NAMES, COMPONENT_COLOURS, strict=True)))
+        _style(plot, "mode", "mass ratio (lines: cumulative)", f"Effective mass {key}")
         self._stacks = []
         self._cumulative = []
-        for colour, name in zip(COMPONENT_COLOURS, COMPONENT_NAMES, strict=True):
+        for colour in COMPONENT_COLOURS:
             bars = pg.BarGraphItem(x=[], height=[], width=BAR_WIDTH, brush=_faded(colour), pen=pen(colour, 0.5))
             self.addItem(bars)
             self._stacks.append(bars)
-            line = pg.PlotDataItem([], [], pen=pen(colour, 2.0), symbol="o", symbolSize=5,
-                                   symbolBrush=colour, symbolPen=None, name=name)
+            line = pg.PlotCurveItem([], [], pen=pen(colour, 2.0), antialias=True)
             self.addItem(line)
             self._cumulative.append(line)
         self._target = pg.InfiniteLine(pos=TARGET_MASS_RATIO, angle=0, pen=pen(TEXT, 1.0, Qt.PenStyle.DotLine),
@@ -185,27 +189,35 @@ class ShapeChart(pg.PlotWidget):
         plot = self.getPlotItem()
         _style(plot, "relative displacement (largest = 1)", "elevation (m)", "Shape over height")
         plot.showGrid(x=True, y=True, alpha=0.2)
-        plot.addLegend(offset=(6, -6), labelTextSize="8pt")
         plot.addItem(pg.InfiniteLine(pos=0.0, angle=90, pen=pen(TEXT, 1.0)))
-        names = ("u_x", "u_y", "θ·l_s")
-        self._lines = [
-            plot.plot([], [], pen=pen(colour, 2.0), symbol="o", symbolSize=6, symbolBrush=colour, symbolPen=None,
-                      name=name)
-            for colour, name in zip(COMPONENT_COLOURS, names, strict=True)
-        ]
+        self._lines = [pg.PlotCurveItem([], [], pen=pen(colour, 2.0), antialias=True) for colour in COMPONENT_COLOURS]
+        self._ticks = [SegmentLines(pen(colour, 3.0)) for colour in COMPONENT_COLOURS]
+        """A short level stroke on each line at every floor."""
+        for item in (*self._lines, *self._ticks):
+            plot.addItem(item)
+        self._key = colour_key(tuple(zip(SHAPE_NAMES, COMPONENT_COLOURS, strict=True)))
         plot.setXRange(-1.1, 1.1, padding=0)
         self.shown_mode = 0
 
     def show_mode(self, results: Results, number: int) -> None:
         mode = results.modes[number - 1]
         profile = height_profile(results.floors, mode)
-        for line, values in zip(self._lines, (profile.u_x, profile.u_y, profile.twist), strict=True):
+        columns = (profile.u_x, profile.u_y, profile.twist)
+        for line, values in zip(self._lines, columns, strict=True):
             line.setData(values, profile.elevation)
+        for ticks, values in zip(self._ticks, columns, strict=True):
+            rows = np.empty((2 * len(values), 2))
+            rows[0::2, 0], rows[1::2, 0] = values - FLOOR_TICK, values + FLOOR_TICK
+            rows[0::2, 1] = rows[1::2, 1] = profile.elevation
+            ticks.set_segments(rows)
         self.getPlotItem().setYRange(0.0, float(profile.elevation[-1]) * 1.05, padding=0)
-        self.getPlotItem().setTitle(f"Mode {number} over height", size="9pt")
+        if number != self.shown_mode:
+            self.getPlotItem().setTitle(f"Mode {number} {self._key}", size="9pt")
         self.shown_mode = number
 
     def clear_results(self) -> None:
         for line in self._lines:
             line.setData([], [])
+        for ticks in self._ticks:
+            ticks.set_segments(np.zeros((0, 2)))
         self.shown_mode = 0

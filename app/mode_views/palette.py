@@ -40,3 +40,13 @@ def mode_caption(mode: Mode) -> str:
     x, y, r = (round(100 * s) for s in mode.shares)
     return (f"Mode {mode.number} · T = {mode.period:.3f} s · {KIND_WORDS[mode.kind]} "
             f"(energy x {x} %, y {y} %, θ {r} %)")
+
+
+def mode_label(mode: Mode) -> str:
+    """A short name for lists: number, period and what it does."""
+    return f"Mode {mode.number} · {mode.period:.3f} s · {KIND_WORDS[mode.kind]}"
+
+
+def colour_key(items: tuple[tuple[str, QColor], ...]) -> str:
+    """Rich text naming each item in its colour, for chart titles (no legend box over the data)."""
+    return " ".join(f"<span style='color:{colour.name()}'>&#9632;&nbsp;{name}</span>" for name, colour in items)

@@ -11,15 +11,16 @@ from __future__ import annotations
 from typing import Any
 
 from PySide6.QtCore import Qt
-from PySide6.QtGui import QAction, QHideEvent, QShowEvent
+from PySide6.QtGui import QAction, QHideEvent, QResizeEvent, QShowEvent
 from PySide6.QtWidgets import (
     QComboBox,
+    QGridLayout,
     QHBoxLayout,
     QLabel,
     QSizePolicy,
     QSlider,
-    QSplitter,
     QStackedWidget,
+    QTabWidget,
     QToolButton,
     QVBoxLayout,
     QWidget,
@@ -29,7 +30,7 @@ from app.canvas.style import DIAGNOSTIC, KIND_COLOURS, KIND_LABELS, MASS_CENTRE,
 from app.mode_views.building_view import BuildingMotionView
 from app.mode_views.charts import MassRatioChart, PeriodChart, ShapeChart
 from app.mode_views.clock import DEFAULT_CYCLE_SECONDS, ModeClock
-from app.mode_views.palette import mode_caption
+from app.mode_views.palette import mode_caption, mode_label
 from app.mode_views.plan_view import PlanMotionView
 from core.mode_frames import BuildingGeometry, building_geometry, peak_scale
 from core.model import Point, Project
@@ -38,8 +39,12 @@ from core.results import Results
 DEFAULT_AMPLITUDE_PERCENT = 8
 """Peak drawn motion as a share of the plan size (mode shapes have no absolute size)."""
 PACE_STEPS_PER_SECOND = 10
-CAUTION = ("Rigid floors; elements resist in their own plane only. Concept-stage estimate: verify with a full "
-           "analysis, follow the local code and defer to licensed practice.")
+WIDE_RATIO = 2.2
+"""Views go in one row when the panel's view area is wider than this times its height."""
+CHROME_HEIGHT = 60
+"""Height of the control row and the footer, px (roughly)."""
+CAUTION = ("Concept-stage estimate (rigid floors, elements stiff in their own plane only): verify with a full "
+           "analysis, follow the local code, defer to licensed practice.")
 
 
 def rigidity_centres(results: Results) -> list[Point | None]:
@@ -80,6 +85,11 @@ class ModeViewsPanel(QWidget):
         self._results: Results | None = None
         self._project: Project | None = None
         self._shown = False
+        """Between showEvent and hideEvent."""
+        self._on_screen = True
+        """False while the dock holding the panel has its tab behind another."""
+        self._stale = True
+        """The document changed while the panel was off screen."""
         self._build_controls()
         self._build_layout()
         self._connect()
@@ -90,7 +100,8 @@ class ModeViewsPanel(QWidget):
     def _build_controls(self) -> None:
         self.mode_box = QComboBox()
         self.mode_box.setObjectName("modeChoice")
-        self.mode_box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToContents)
+        self.mode_box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
+        self.mode_box.setMinimumContentsLength(20)
         self.play_action = QAction("Play", self)
         self.play_action.setCheckable(True)
         self.play_action.setToolTip("Play or pause the motion")
@@ -104,13 +115,13 @@ class ModeViewsPanel(QWidget):
         self.pace_slider.setObjectName("paceSlider")
         self.pace_slider.setRange(5, 60)  # tenths of a second per cycle
         self.pace_slider.setValue(round(DEFAULT_CYCLE_SECONDS * PACE_STEPS_PER_SECOND))
-        self.pace_slider.setFixedWidth(90)
+        self.pace_slider.setFixedWidth(70)
         self.pace_label = QLabel()
         self.amplitude_slider = QSlider(Qt.Orientation.Horizontal)
         self.amplitude_slider.setObjectName("amplitudeSlider")
         self.amplitude_slider.setRange(1, 40)
         self.amplitude_slider.setValue(DEFAULT_AMPLITUDE_PERCENT)
-        self.amplitude_slider.setFixedWidth(90)
+        self.amplitude_slider.setFixedWidth(70)
         self.amplitude_label = QLabel()
         self.floor_box = QComboBox()
         self.floor_box.setObjectName("floorChoice")
@@ -118,37 +129,35 @@ class ModeViewsPanel(QWidget):
 
     def _build_layout(self) -> None:
         controls = QHBoxLayout()
-        controls.setContentsMargins(4, 2, 4, 2)
+        controls.setContentsMargins(4, 2, 4, 0)
         groups = (
             (QLabel("Mode"), self.mode_box, self.play_button, self.step_button),
             (QLabel("Pace"), self.pace_slider, self.pace_label),
             (QLabel("Amplitude"), self.amplitude_slider, self.amplitude_label),
-            (QLabel("Plan floor"), self.floor_box),
+            (QLabel("Floor"), self.floor_box),
         )
         for group in groups:
             for widget in group:
                 controls.addWidget(widget)
-            controls.addSpacing(14)
+            controls.addSpacing(8)
         controls.addStretch(1)
 
-        views = QSplitter(Qt.Orientation.Horizontal)
-        views.addWidget(self.plan)
-        views.addWidget(self.building)
-        charts = QSplitter(Qt.Orientation.Horizontal)
-        for chart in (self.periods, self.masses, self.shape):
-            charts.addWidget(chart)
-        body = QSplitter(Qt.Orientation.Vertical)
-        body.addWidget(views)
-        body.addWidget(charts)
-        body.setStretchFactor(0, 3)
-        body.setStretchFactor(1, 2)
+        self.chart_tabs = QTabWidget()
+        self.chart_tabs.setObjectName("modeChartTabs")
+        self.chart_tabs.setDocumentMode(True)
+        self.views = QWidget()
+        self._grid = QGridLayout(self.views)
+        self._grid.setContentsMargins(0, 0, 0, 0)
+        self._grid.setSpacing(2)
+        self.wide = False
+        self._arrange(wide=False)
         self.diagnostic = QLabel()
         self.diagnostic.setObjectName("modeDiagnostic")
         self.diagnostic.setWordWrap(True)
         self.diagnostic.setAlignment(Qt.AlignmentFlag.AlignCenter)
         self.diagnostic.setStyleSheet(f"color: {DIAGNOSTIC.name()}; font-size: 11pt; padding: 24px;")
         self.stack = QStackedWidget()
-        self.stack.addWidget(body)
+        self.stack.addWidget(self.views)
         self.stack.addWidget(self.diagnostic)
         self.stack.setSizePolicy(QSizePolicy.Policy.Expanding, QSizePolicy.Policy.Expanding)
 
@@ -163,8 +172,48 @@ class ModeViewsPanel(QWidget):
         layout.setSpacing(2)
         layout.addLayout(controls)
         layout.addWidget(self.stack, 1)
-        layout.addWidget(key)
-        layout.addWidget(caution)
+        for line in (key, caution):
+            line.setContentsMargins(4, 0, 4, 0)
+            layout.addWidget(line)
+
+    def _arrange(self, wide: bool) -> None:
+        """A wide, low strip (a bottom dock): plan, 3D and the charts as tabs side by side.
+        Otherwise the motion above and the three charts in a row below."""
+        self.wide = wide
+        grid = self._grid
+        charts = ((self.periods, "Periods"), (self.masses, "Mass"), (self.shape, "Shape"))
+        for widget in (self.plan, self.building, self.chart_tabs, *(c for c, _ in charts)):
+            grid.removeWidget(widget)
+        while self.chart_tabs.count():
+            self.chart_tabs.removeTab(0)
+        for i in range(6):
+            grid.setColumnStretch(i, 0)
+            grid.setRowStretch(i, 0)
+        if wide:
+            for column, widget in enumerate((self.plan, self.building, self.chart_tabs)):
+                grid.addWidget(widget, 0, column)
+                grid.setColumnStretch(column, 1)
+            for chart, title in charts:
+                self.chart_tabs.addTab(chart, title)
+            grid.setRowStretch(0, 1)
+            self.chart_tabs.show()
+        else:
+            self.chart_tabs.hide()
+            grid.addWidget(self.plan, 0, 0, 1, 3)
+            grid.addWidget(self.building, 0, 3, 1, 3)
+            for column, (chart, _) in zip((0, 2, 4), charts, strict=True):
+                grid.addWidget(chart, 1, column, 1, 2)
+                chart.show()
+            for column in range(6):
+                grid.setColumnStretch(column, 1)
+            grid.setRowStretch(0, 3)
+            grid.setRowStretch(1, 2)
+
+    def resizeEvent(self, event: QResizeEvent) -> None:
+        super().resizeEvent(event)
+        wide = event.size().width() > WIDE_RATIO * max(1, event.size().height() - CHROME_HEIGHT)
+        if wide != self.wide:
+            self._arrange(wide)
 
     def _connect(self) -> None:
         document = self.document
@@ -185,8 +234,20 @@ class ModeViewsPanel(QWidget):
 
     # ------------------------------------------------------------------ following the document
 
+    @property
+    def on_screen(self) -> bool:
+        return self._shown and self._on_screen
+
     def refresh(self) -> None:
-        """Rebuild from the document's latest results; the animation carries on from its phase."""
+        """Rebuild from the document's latest results; the animation carries on from its phase.
+
+        Off screen the work waits (``_stale``) until the panel is shown again, so a drag in the
+        editor pays nothing for a panel behind another tab."""
+        if False and not self.on_screen:
+            self._stale = True
+            self._update_ticking()
+            return
+        self._stale = False
         results, project = self.document.results, self.document.analysed_project
         if results is None or project is None or not results.modes:
             self._results = self._project = self._geometry = None
@@ -215,6 +276,9 @@ class ModeViewsPanel(QWidget):
     def select_mode(self, number: int) -> None:
         """Show mode ``number`` (1-based) in every view."""
         self.mode_number = int(number)
+        if not self.on_screen:
+            self._stale = True
+            return
         if self._results is None:
             return
         self.mode_number = min(max(1, self.mode_number), len(self._results.modes))
@@ -229,6 +293,9 @@ class ModeViewsPanel(QWidget):
     def set_floor(self, index: int) -> None:
         """Emphasise 0-based floor ``index`` in the plan."""
         self.floor_index = max(0, index)
+        if not self.on_screen:
+            self._stale = True
+            return
         if self._results is None:
             return
         self.floor_index = min(self.floor_index, len(self._results.floors) - 1)
@@ -237,11 +304,13 @@ class ModeViewsPanel(QWidget):
 
     def _fill_choices(self) -> None:
         assert self._results is not None
-        captions = [mode_caption(m) for m in self._results.modes]
-        if [self.mode_box.itemText(i) for i in range(self.mode_box.count())] != captions:
+        labels = [mode_label(m) for m in self._results.modes]
+        if [self.mode_box.itemText(i) for i in range(self.mode_box.count())] != labels:
             self.mode_box.blockSignals(True)
             self.mode_box.clear()
-            self.mode_box.addItems(captions)
+            for i, mode in enumerate(self._results.modes):
+                self.mode_box.addItem(labels[i])
+                self.mode_box.setItemData(i, mode_caption(mode), Qt.ItemDataRole.ToolTipRole)
             self.mode_box.blockSignals(False)
         self.mode_box.setCurrentIndex(self.mode_number - 1)
         names = [f.name for f in self._results.floors]
@@ -263,9 +332,11 @@ class ModeViewsPanel(QWidget):
         self.plan.show_mode(geometry, results.floors, mode, scale, peak, floor, phase)
         self.building.show_mode(geometry, results.floors, mode, scale, peak, phase)
         self.shape.show_mode(results, self.mode_number)
-        self.amplitude_label.setText(f"{self.amplitude_slider.value()} % of plan = {peak:.2f} m peak")
+        self.amplitude_label.setText(f"{self.amplitude_slider.value()} % = {peak:.2f} m")
+        self.amplitude_slider.setToolTip("Largest drawn motion as a share of the plan size: mode shapes have no "
+                                         f"size of their own (now {peak:.2f} m)")
         self._pace_changed(self.pace_slider.value())
-        self.setToolTip(mode_caption(mode))
+        self.mode_box.setToolTip(mode_caption(mode))
 
     # ------------------------------------------------------------------ controls
 
@@ -297,10 +368,10 @@ class ModeViewsPanel(QWidget):
     def _pace_changed(self, value: int) -> None:
         seconds = value / PACE_STEPS_PER_SECOND
         self.clock.set_cycle_seconds(seconds)
-        text = f"{seconds:.1f} s per cycle"
+        self.pace_label.setText(f"{seconds:.1f} s/cycle")
         if self._results is not None:
-            text += f" (real T = {self._results.modes[self.mode_number - 1].period:.2f} s)"
-        self.pace_label.setText(text)
+            real = self._results.modes[self.mode_number - 1].period
+            self.pace_label.setToolTip(f"Visual pace only: the mode's real period is {real:.3f} s")
 
     def _amplitude_changed(self, _value: int) -> None:
         self._show_motion()
@@ -313,8 +384,19 @@ class ModeViewsPanel(QWidget):
 
     # ------------------------------------------------------------------ visibility
 
+    def set_on_screen(self, on_screen: bool) -> None:
+        """Told by a dock whose tab is behind another one (it stays 'visible' to Qt meanwhile)."""
+        self._on_screen = on_screen
+        self._visibility_changed()
+
+    def _visibility_changed(self) -> None:
+        if self.on_screen and self._stale:
+            self.refresh()
+        else:
+            self._update_ticking()
+
     def _update_ticking(self) -> None:
-        if self._shown and self._results is not None:
+        if self.on_screen and self._results is not None:
             self.clock.resume()
         else:
             self.clock.suspend()
@@ -322,19 +404,20 @@ class ModeViewsPanel(QWidget):
     def showEvent(self, event: QShowEvent) -> None:
         super().showEvent(event)
         self._shown = True
-        self._update_ticking()
+        self._visibility_changed()
 
     def hideEvent(self, event: QHideEvent) -> None:
         super().hideEvent(event)
         self._shown = False
-        self._update_ticking()
+        self._visibility_changed()
 
 
 def install(window: Any) -> ModeViewsPanel:
     """Add the mode-shape panel to the main window, following ``window.document``."""
     panel = ModeViewsPanel(window.document)
-    window.add_panel(panel, "Mode shapes", "modeShapesPanel", Qt.DockWidgetArea.BottomDockWidgetArea)
-    menu = window.menu("Modes")
+    dock = window.add_panel(panel, "Mode shapes", "modeShapesPanel", Qt.DockWidgetArea.BottomDockWidgetArea)
+    dock.visibilityChanged.connect(panel.set_on_screen)
+    menu = window.menu("&Modes")
     menu.addAction(panel.play_action)
     menu.addAction(panel.step_action)
     return panel

@@ -55,6 +55,7 @@ class PlanMotionView(pg.PlotWidget):
             item.addItem(line)
         self._motion: LayerMotion | None = None
         self._range: tuple[float, float, float, float] | None = None
+        self._title = ""
         self.frames_drawn = 0
 
     def show_mode(
@@ -67,7 +68,8 @@ class PlanMotionView(pg.PlotWidget):
         floor: int,
         phase: float,
     ) -> None:
-        """Precompute the motion of ``mode`` at drawn ``scale``, emphasising 0-based ``floor``."""
+        """Precompute the motion of ``mode`` at drawn ``scale`` (largest motion ``peak`` m), emphasising
+        0-based ``floor``; the range leaves room for that peak."""
         floor = max(0, min(floor, geometry.floor_count - 1))
         layers: dict[str, AttachedPoints] = {
             "others": AttachedPoints.join([geometry.outlines.on_floor(j)
@@ -83,7 +85,10 @@ class PlanMotionView(pg.PlotWidget):
         self._rest_outlines.set_segments(geometry.outlines.xy)
         self._rest_markers.set_segments(np.concatenate([rest["mass"], rest["rigidity"]]))
         name = floors[floor].name if floor < len(floors) else ""
-        self.getPlotItem().setTitle(f"Plan, {name} emphasised (motion drawn to {peak:.2f} m peak)", size="9pt")
+        title = f"Plan · {name} bold"
+        if title != self._title:
+            self._title = title
+            self.getPlotItem().setTitle(title, size="9pt")
         self._fix_range(geometry, peak)
         self.set_phase(phase)
 

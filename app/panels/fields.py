@@ -70,10 +70,11 @@ class _Editor:
         self.error.hide()
         kind = row.kind
         if kind == "choice":
+            # Values stay on the Python side: a QVariant would turn an enum into a plain str.
+            self.choices = [value for _text, value in row.choices]
             self.widget: QWidget = QComboBox()
-            for text, value in row.choices:
-                self.widget.addItem(text, value)
-            self.widget.activated.connect(lambda _i: self._commit(self.widget.currentData()))
+            self.widget.addItems([text for text, _value in row.choices])
+            self.widget.activated.connect(lambda i: self._commit(self.choices[i]) if i >= 0 else None)
         elif kind == "check":
             self.widget = QCheckBox()
             self.widget.clicked.connect(lambda checked: self._commit(bool(checked)))
@@ -106,8 +107,7 @@ class _Editor:
         self.clear_error()
         w = self.widget
         if isinstance(w, QComboBox):
-            index = w.findData(value) if value is not MIXED else -1
-            w.setCurrentIndex(index)
+            w.setCurrentIndex(self.choices.index(value) if value in self.choices else -1)
         elif isinstance(w, QCheckBox):
             w.setTristate(value is MIXED)
             w.setCheckState(Qt.CheckState.PartiallyChecked if value is MIXED else Qt.CheckState(2 * bool(value)))

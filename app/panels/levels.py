@@ -42,7 +42,10 @@ class LevelStrip(QWidget):
         self.setSizePolicy(QSizePolicy.Policy.Preferred, QSizePolicy.Policy.Expanding)
         for signal in (document.project_changed, document.preview_changed, document.results_changed):
             signal.connect(self.update)
-        document.current_level_changed.connect(lambda _level: self.update())
+        document.current_level_changed.connect(self._level_changed)
+
+    def _level_changed(self, _level: int) -> None:
+        self.update()
 
     def sizeHint(self) -> QSize:
         return QSize(220, 420)
@@ -252,10 +255,10 @@ class LevelsPanel(QWidget):
         layout.addWidget(self.form)
         for signal in (document.project_changed, document.results_changed):
             signal.connect(self.refresh)
-        document.current_level_changed.connect(lambda _n: self.refresh())
+        document.current_level_changed.connect(self.refresh)
         self.refresh()
 
-    def refresh(self) -> None:
+    def refresh(self, *_: object) -> None:
         project = self.document.project
         number = self.document.current_level
         if not project.levels:

@@ -101,7 +101,7 @@ class ToolOptions(QToolBar):
 
     def _grid_changed(self, value: float) -> None:
         self.view.grid_spacing = value
-        self.view.viewport().update()
+        self.view.redraw_background()
 
     # ------------------------------------------------------------------ typed values
 

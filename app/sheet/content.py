@@ -122,19 +122,23 @@ class SheetContent:
     rule_set: str
     assumptions: tuple[str, ...]
     caution: str
-    rows_omitted: int = 0
-    """Storeys left out of the checks table because the page was full (all of them passing)."""
+    omitted: tuple[int, ...] = ()
+    """Storeys left out of the checks table because the page was full (passing ones first)."""
 
 
 def worst_torsion_level(results: Results) -> tuple[int, str]:
     """The level with the largest torsion ratio in either direction, and a phrase saying so.
 
-    An infinite ratio (the ends' average does not move) counts as the worst; of equal ratios the
-    lowest storey is taken.
+    An infinite ratio (the ends' average does not move) counts as the worst, an undefined one as
+    none; of equal ratios the lowest storey is taken.
     """
-    best = max(results.lateral.storeys, key=lambda s: (max(s.torsion_ratio), -s.storey))
-    ratio = max(best.torsion_ratio)
-    direction = DIRECTIONS[int(best.torsion_ratio[1] > best.torsion_ratio[0])]
+
+    def worst(ratios: tuple[float, float]) -> float:
+        return max((r for r in ratios if not math.isnan(r)), default=0.0)
+
+    best = max(results.lateral.storeys, key=lambda s: (worst(s.torsion_ratio), -s.storey))
+    ratio = worst(best.torsion_ratio)
+    direction = DIRECTIONS[int(best.torsion_ratio[1] == ratio)]
     shown = "∞" if math.isinf(ratio) else f"{ratio:.2f}"
     return best.storey, f"largest torsion ratio, {shown} in {direction}"
 
@@ -292,8 +296,9 @@ def assumptions(project: Project, results: Results) -> tuple[str, ...]:
     lateral = results.lateral
     lines.append(_loads_text(lateral))
     lines.append(
-        f"Design drift = {lateral.drift_amplification:g} × elastic drift; ν = {lateral.drift_reduction:g} "
-        f"times it is held to {lateral.drift_limit:g}·h. Rule set: {_rule_set_name(lateral.rule_set)}."
+        f"Drift: design drift d_r = {lateral.drift_amplification:g} × elastic drift; ν·d_r with "
+        f"ν = {lateral.drift_reduction:g} is held to {lateral.drift_limit:g}·h. "
+        f"Rule set: {_rule_set_name(lateral.rule_set)}."
     )
     return tuple(lines)
 

@@ -12,6 +12,7 @@ import math
 from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QBrush, QColor, QPolygonF
 
+from app.mode_views.palette import KIND_WORDS, ROTATION_COLOUR, X_COLOUR, Y_COLOUR
 from app.sheet.content import period_text
 from app.sheet.painting import ALIGN_LEFT, INK, MUTED, RULE, Paper
 from app.sheet.plan_drawing import MASS_COLOUR, mass_centre_mark
@@ -24,18 +25,18 @@ PEAK_SHARE = 0.15
 
 MOTION_COLOUR = QColor("#1e63b5")
 PROFILE_STYLES: tuple[tuple[str, QColor, Qt.PenStyle], ...] = (
-    ("u_x", QColor("#1e63b5"), Qt.PenStyle.SolidLine),
-    ("u_y", QColor("#c25e00"), Qt.PenStyle.DashLine),
-    ("θ·l_s", QColor("#8a3fa6"), Qt.PenStyle.DotLine),
+    ("u_x", X_COLOUR, Qt.PenStyle.SolidLine),
+    ("u_y", Y_COLOUR, Qt.PenStyle.DashLine),
+    ("θ·l_s", ROTATION_COLOUR, Qt.PenStyle.DotLine),
 )
-KIND_WORDS = {"x": "x translation", "y": "y translation", "torsion": "torsion", "mixed": "mixed"}
+"""The shape over height in the mode views' colours, told apart by dashes on a grey print too."""
 
 
 def mode_caption(mode: Mode) -> tuple[str, str]:
     """The two caption lines of a sketch: number and period, then kind and mass shares."""
     first = f"Mode {mode.number}   T = {period_text(mode.period)} s"
     mx, my, mr = (100 * v for v in mode.mass_ratio)
-    second = f"{KIND_WORDS[mode.kind.value]} · mass x {mx:.0f} %, y {my:.0f} %, θ {mr:.0f} %"
+    second = f"{KIND_WORDS[mode.kind]} · mass x {mx:.0f} %, y {my:.0f} %, θ {mr:.0f} %"
     return first, second
 
 

@@ -50,13 +50,6 @@ class Paper:
     def mm(self, value: float) -> float:
         return value * self.units_per_mm
 
-    def to_mm(self, value: float) -> float:
-        return value / self.units_per_mm
-
-    def rect(self, x: float, y: float, w: float, h: float) -> QRectF:
-        """A rectangle given in mm from the device origin."""
-        return QRectF(self.mm(x), self.mm(y), self.mm(w), self.mm(h))
-
     def font(
         self, points: float, bold: bool = False, italic: bool = False, scaled: bool = True, narrow: bool = False
     ) -> QFont:
@@ -87,6 +80,13 @@ class Paper:
     def text_width(self, text: str, font: QFont) -> float:
         self.painter.setFont(font)
         return self.painter.fontMetrics().horizontalAdvance(text) * 1.0
+
+    def elided(
+        self, text: str, font: QFont, width: float, mode: Qt.TextElideMode = Qt.TextElideMode.ElideRight
+    ) -> str:
+        """``text`` shortened with an ellipsis if it is wider than ``width`` device units."""
+        self.painter.setFont(font)
+        return self.painter.fontMetrics().elidedText(text, mode, int(width))
 
     def text_height(self, text: str, font: QFont, width: float) -> float:
         """Height of ``text`` wrapped to ``width`` device units."""
@@ -165,13 +165,13 @@ class TableLayout:
             share = max(self.MIN_FONT_SHARE, width / sum(natural))
             natural = self._natural_widths(points * share)
         self._fonts(points * share)
+        self.squeezed = sum(natural) > width
+        """True when even the smallest font leaves cells too wide: they are then elided."""
         if max_column_mm is not None:
             width = min(width, sum(max(n, paper.mm(max_column_mm) * c.width) for n, c in zip(natural, columns,
                                                                                               strict=True)))
-        spare = width - sum(natural)
-        if spare >= 0:
-            total = sum(c.width for c in columns)
-            self.widths = [n + spare * c.width / total for n, c in zip(natural, columns, strict=True)]
+        if sum(natural) <= width:
+            self.widths = _level_widths(natural, [c.width for c in columns], width)
         else:
             self.widths = [n * width / sum(natural) for n in natural]
         self.width = width
@@ -230,12 +230,25 @@ class TableLayout:
                     paper.fill(box.adjusted(paper.mm(0.15), paper.mm(0.15), -paper.mm(0.15), -paper.mm(0.15)), tint)
                 font = self.bold_font if cell.bold else self.body_font
                 inner = box.adjusted(self.pad, 0, -self.pad, 0)
-                paper.painter.setFont(font)
-                text = paper.painter.fontMetrics().elidedText(cell.text, Qt.TextElideMode.ElideRight, int(inner.width()))
-                paper.text(inner, text, font, colour, column.align)
+                paper.text(inner, paper.elided(cell.text, font, inner.width()), font, colour, column.align)
                 left += w
             top += self.row_height
             if index < len(self.rows) - 1:
                 paper.hline(x, x + self.width, top, RULE, 0.1)
         paper.hline(x, x + self.width, top, INK, 0.25)
         return top
+
+
+def _level_widths(natural: Sequence[float], weights: Sequence[float], width: float) -> list[float]:
+    """Column widths max(natural_i, t·weight_i) with t chosen so they sum to ``width``: the spare
+    room goes to the narrowest columns first, so headers wrap evenly."""
+    low, high = 0.0, width / min(weights)
+    for _ in range(60):
+        t = (low + high) / 2
+        if sum(max(n, t * w) for n, w in zip(natural, weights, strict=True)) > width:
+            high = t
+        else:
+            low = t
+    widths = [max(n, low * w) for n, w in zip(natural, weights, strict=True)]
+    rest = width - sum(widths)
+    return [w + rest / len(widths) for w in widths]

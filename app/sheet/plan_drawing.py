@@ -1,8 +1,8 @@
 """The plan of one level on the sheet, at a true drawing scale: outline, openings, the elements
 of the storey below with their ids, the centres of mass and rigidity and the eccentricity.
 
-Symbols are ours and match the editor's mode views (``core.mode_frames``): the mass centre is a
-circle with a cross, the rigidity centre a square on its corner with a smaller square inside.
+Symbols and colours are the editor's (``core.mode_frames``, ``app.canvas.style``): the mass centre
+is a circle with a cross, the rigidity centre a square on its corner with a smaller square inside.
 Element kinds differ in colour and in shape, so the plan still reads on a grey printer: walls are
 solid bars, braced frames carry their brace pattern per bay, moment frames show their rigid
 joints, springs are dashed with a coil.
@@ -18,6 +18,7 @@ from dataclasses import dataclass
 from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QBrush, QColor, QPainterPath, QPolygonF
 
+from app.canvas.style import KIND_COLOURS, KIND_LABELS, MASS_CENTRE, RIGIDITY_CENTRE
 from app.sheet.painting import ALIGN_CENTRE, ALIGN_LEFT, ALIGN_RIGHT, INK, MUTED, Paper
 from core.model import (
     BracedFrame,
@@ -32,20 +33,8 @@ from core.model import (
 )
 from core.results import Results
 
-KIND_COLOURS: dict[ElementKind, QColor] = {
-    ElementKind.SHEAR_WALL: QColor("#37454f"),
-    ElementKind.BRACED_FRAME: QColor("#1e63b5"),
-    ElementKind.MOMENT_FRAME: QColor("#2f8a4c"),
-    ElementKind.SPRING: QColor("#8a3fa6"),
-}
-KIND_WORDS: dict[ElementKind, str] = {
-    ElementKind.SHEAR_WALL: "shear wall",
-    ElementKind.BRACED_FRAME: "braced frame",
-    ElementKind.MOMENT_FRAME: "moment frame",
-    ElementKind.SPRING: "spring",
-}
-MASS_COLOUR = QColor("#b03a2e")
-RIGIDITY_COLOUR = QColor("#00695c")
+MASS_COLOUR = MASS_CENTRE
+RIGIDITY_COLOUR = RIGIDITY_CENTRE
 FLOOR_FILL = QColor("#eef2f5")
 OPENING_HATCH = QColor("#9aa5b1")
 
@@ -54,6 +43,8 @@ STANDARD_SCALES = (20, 25, 50, 75, 100, 125, 150, 200, 250, 300, 400, 500, 750, 
 
 MARKER_MM = 1.7
 """Radius of the centre symbols on paper, mm."""
+FOOT_MM = 5.0
+"""Strip kept free at the foot of the plan for the axes and the scale bar, mm."""
 WALL_MIN_MM = 0.9
 """Walls thinner than this on paper are drawn this thick, so they stay visible."""
 
@@ -246,7 +237,7 @@ def draw_plan(paper: Paper, box: QRectF, project: Project, results: Results, lev
     """Draw level ``level`` (1-based) fitted into ``box``; returns the scale used."""
     painter = paper.painter
     margin = paper.mm(4.5)
-    inner = box.adjusted(margin, margin, -margin, -margin)
+    inner = box.adjusted(margin, margin, -margin, -margin - paper.mm(FOOT_MM))
     scale = choose_scale(paper, inner, plan_bounds(project, level))
     floor = project.levels[level - 1]
     painter.save()
@@ -370,7 +361,7 @@ def draw_legend(paper: Paper, box: QRectF, kinds: Sequence[ElementKind], with_ri
     swatch = paper.mm(6.0)
     gap = paper.mm(3.0)
     line = paper.line_height(font) * 1.25
-    entries: list[tuple[str, ElementKind | str]] = [(KIND_WORDS[k], k) for k in ElementKind if k in kinds]
+    entries: list[tuple[str, ElementKind | str]] = [(KIND_LABELS[k].lower(), k) for k in ElementKind if k in kinds]
     entries.append(("centre of mass", "mass"))
     if with_rigidity:
         entries.append(("centre of rigidity", "rigidity"))

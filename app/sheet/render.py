@@ -42,6 +42,7 @@ from core.lateral_results import STATUS_ORDER, Status
 from core.model import Project
 from core.results import Results
 
+MIDDLE = Qt.TextElideMode.ElideMiddle
 GAP_MM = 3.5
 TITLE_MM = 21.0
 MIN_PLAN_MM = 88.0
@@ -124,7 +125,8 @@ class SheetPainter:
             rx, ry = storey.torsional_radius
             info.append(
                 f"Centre of rigidity ({cr[0]:.2f}, {cr[1]:.2f}) m from storey stiffnesses; eccentricity "
-                f"e_0x = {ex:+.2f} m, e_0y = {ey:+.2f} m; torsional radius r_x = {rx:.2f} m, r_y = {ry:.2f} m."
+                f"e_0x = {_signed(ex)} m, e_0y = {_signed(ey)} m; torsional radius r_x = {rx:.2f} m, "
+                f"r_y = {ry:.2f} m."
             )
         else:
             info.append("No centre of rigidity: the storey cannot resist translation in both directions.")
@@ -192,7 +194,7 @@ class SheetPainter:
             ]
             for m in self.content.modes
         ]
-        return TableLayout(self.paper, width, columns, rows, 6.5)
+        return TableLayout(self.paper, width, columns, rows, 6.5, max_column_mm=13.0)
 
     def modes_block(self) -> Block:
         content = self.content
@@ -210,7 +212,15 @@ class SheetPainter:
 
         return Block(measure, draw)
 
-    def checks_table(self, width: float) -> TableLayout:
+    def checks_table(self, width: float) -> tuple[TableLayout, bool]:
+        """The per-storey table for ``width``, and whether it is compact: when the cells do not fit,
+        a passing figure is printed without the word "pass" (warn and fail keep theirs)."""
+        table = self._checks_table(width, compact=False)
+        if table.squeezed:
+            return self._checks_table(width, compact=True), True
+        return table, False
+
+    def _checks_table(self, width: float, compact: bool) -> TableLayout:
         content = self.content
         columns = [Column("Storey", 1.5, ALIGN_LEFT)] + [Column(_column_header(c), 1.0) for c in content.columns]
         rows = []
@@ -223,26 +233,29 @@ class SheetPainter:
                 value = number_text(cell.value)
                 if column.limit is None:
                     value += f"/{number_text(cell.limit)}"
-                cells.append(Cell(f"{value} {cell.status.value}", cell.status, bold=cell.status is Status.FAIL))
+                word = "" if compact and cell.status is Status.PASS else f" {cell.status.value}"
+                cells.append(Cell(value + word, cell.status, bold=cell.status is Status.FAIL))
             rows.append(cells)
         return TableLayout(self.paper, width, columns, rows, 6.3, max_column_mm=19.0)
 
-    def checks_notes(self) -> list[str]:
+    def checks_notes(self, compact: bool) -> list[str]:
         content = self.content
-        notes = [f"{c.text} — {c.status.value} [{c.clause}]." for c in content.building_checks]
-        if content.rows_omitted:
-            notes.append(f"{content.rows_omitted} storeys that pass every check are not listed (see the CSV export).")
+        notes = ["A figure printed without a word passes." if compact else ""]
+        notes += [f"{c.text} — {c.status.value} [{c.clause}]." for c in content.building_checks]
+        if content.omitted:
+            notes.append(f"Not listed for want of room: storeys {_ranges(content.omitted)} "
+                         "(every figure is in the CSV export).")
         notes += [f"[{i}] {clause}" for i, clause in enumerate(content.clauses, start=1)]
-        return notes
+        return [n for n in notes if n]
 
     def checks_block(self) -> Block:
         """Heading, the per-storey table, the whole-building checks and the clause footnotes."""
         content = self.content
         paper = self.paper
         title = "Checks per storey"
-        notes = self.checks_notes()
         if not content.columns:
-            message = [f"No figure is judged per storey under rule set {content.rule_set}.", *notes]
+            message = [f"No figure is judged per storey under rule set {content.rule_set}.",
+                       *self.checks_notes(compact=False)]
 
             def measure_empty(width: float) -> float:
                 return self.heading_height() + self.lines_height(message, width, 6.2)
@@ -254,17 +267,17 @@ class SheetPainter:
             return Block(measure_empty, draw_empty)
         note = f"rule set {content.rule_set}; x, y: direction of analysis; worst case per storey, top first"
 
-        def notes_height(width: float) -> float:
-            return paper.mm(1) + self.lines_height(notes, width, 5.8)
-
         def measure(width: float) -> float:
-            return self.heading_height() + self.checks_table(width).height + notes_height(width)
+            table, compact = self.checks_table(width)
+            notes = self.checks_notes(compact)
+            return self.heading_height() + table.height + paper.mm(1) + self.lines_height(notes, width, 5.8)
 
         def draw(rect: QRectF) -> None:
             top = rect.top() + self.heading(rect, title, note)
-            bottom = self.checks_table(rect.width()).draw(rect.left(), top)
-            self.lines(QRectF(rect.left(), bottom + paper.mm(1), rect.width(), rect.bottom() - bottom), notes,
-                       5.8, colour=MUTED)
+            table, compact = self.checks_table(rect.width())
+            bottom = table.draw(rect.left(), top)
+            self.lines(QRectF(rect.left(), bottom + paper.mm(1), rect.width(), rect.bottom() - bottom),
+                       self.checks_notes(compact), 5.8, colour=MUTED)
 
         return Block(measure, draw)
 
@@ -332,11 +345,11 @@ class SheetPainter:
         while paper.text_width(title.project, name_font) > project_box.width() and name_font.pointSizeF() > 7:
             name_font.setPointSizeF(name_font.pointSizeF() - 0.5)
         paper.text(QRectF(project_box.left(), project_box.top() + label_h, project_box.width(), name_h),
-                   _elide(paper, title.project, name_font, project_box.width()), name_font, INK)
+                   paper.elided(title.project, name_font, project_box.width(), MIDDLE), name_font, INK)
         file_font = paper.font(6.2, scaled=False)
         paper.text(QRectF(project_box.left(), project_box.bottom() - paper.line_height(file_font), project_box.width(),
                           paper.line_height(file_font)),
-                   _elide(paper, f"file  {title.file_name or '(not saved)'}", file_font, project_box.width()),
+                   paper.elided(f"file  {title.file_name or '(not saved)'}", file_font, project_box.width(), MIDDLE),
                    file_font, MUTED)
         x += project_w
         fields = [
@@ -357,18 +370,32 @@ class SheetPainter:
             painter.drawRect(QRectF(cx, cy, cell_w, cell_h))
             paper.text(QRectF(cx + pad, cy + pad * 0.6, cell_w - 2 * pad, label_h), name, label, MUTED)
             paper.text(QRectF(cx + pad, cy + pad * 0.6 + label_h, cell_w - 2 * pad, cell_h - label_h - pad),
-                       _elide(paper, value, value_font, cell_w - 2 * pad), value_font, INK)
+                       paper.elided(value, value_font, cell_w - 2 * pad, MIDDLE), value_font, INK)
+
+
+def _signed(value: float) -> str:
+    """A length with its sign, two decimals, never "-0.00"."""
+    return f"{round(value, 2) + 0.0:+.2f}"
+
+
+def _ranges(numbers: tuple[int, ...]) -> str:
+    """1, 2, 3, 5 → "1–3, 5"."""
+    parts: list[str] = []
+    start = previous = numbers[0]
+    for n in (*numbers[1:], None):
+        if n is not None and n == previous + 1:
+            previous = n
+            continue
+        parts.append(f"{start}–{previous}" if previous > start else f"{start}")
+        if n is not None:
+            start = previous = n
+    return ", ".join(parts)
 
 
 def _column_header(column: ChecksColumn) -> str:
     name = column.label + (f", {column.direction}" if column.direction else "")
     limit = f"limit {column.limit:g} " if column.limit is not None else ""
     return f"{name}\n{limit}[{', '.join(column.clauses)}]"
-
-
-def _elide(paper: Paper, text: str, font, width: float) -> str:
-    paper.painter.setFont(font)
-    return paper.painter.fontMetrics().elidedText(text, Qt.TextElideMode.ElideMiddle, int(width))
 
 
 # ---------------------------------------------------------------- composition
@@ -390,7 +417,8 @@ def _fit(painter: QPainter, project: Project, results: Results, content: SheetCo
         candidates = passing or [r for r in rows if r.storey != content.level] or rows
         drop = min(candidates, key=lambda r: (_severity(r), r.storey))
         rows.remove(drop)
-        sheet.content = dataclasses.replace(sheet.content, rows=tuple(rows), rows_omitted=len(content.rows) - len(rows))
+        omitted = tuple(sorted(r.storey for r in content.rows if r not in rows))
+        sheet.content = dataclasses.replace(sheet.content, rows=tuple(rows), omitted=omitted)
     return sheet
 
 

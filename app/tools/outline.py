@@ -70,7 +70,7 @@ class PolygonTool(Tool):
             self._rubber = RubberPath(self.view.scene())
             self._first = Handles(self.view.scene())
         shown = self.points + ([self._cursor] if self._cursor is not None else [])
-        self._rubber.show_points(shown)
+        self._rubber.show_points(shown, closed=len(shown) >= 3)  # the closing edge shows the shape so far
         assert self._first is not None
         near_first = self._closes_at(self._cursor) if self._cursor is not None else False
         self._first.set_points(self.points[:1], 0 if near_first else None)

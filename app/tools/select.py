@@ -77,7 +77,7 @@ class SelectTool(Tool):
         return None
 
     def press(self, event: PlanEvent) -> None:
-        if event.button != Qt.MouseButton.LeftButton:
+        if event.button != Qt.MouseButton.LeftButton or self._mode in ("move", "stretch"):
             return
         self._press = event
         end = self._end_under(event.raw)

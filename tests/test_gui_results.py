@@ -1,0 +1,56 @@
+"""Results tables: contents from the core's results, row clicks that show a level, an element or a
+mode, and copying as tab-separated text."""
+
+from __future__ import annotations
+
+import pytest
+from PySide6.QtGui import QGuiApplication
+
+from app.resources import sample_path
+from core.fileio import load_project
+from tests.test_gui_support import make_window
+
+
+@pytest.fixture
+def window(qtbot, tmp_path):
+    return make_window(qtbot, tmp_path, load_project(sample_path("residential_8_storey_walls")))
+
+
+def click_row(table, row: int) -> None:
+    table.clicked.emit(table.rows_model.index(row, 0))
+
+
+def test_tables_hold_the_core_results(window):
+    results = window.document.results
+    tables = window.tables
+    assert tables.modes.rows_model.rowCount() == len(results.modes)
+    assert tables.storeys.rows_model.rowCount() == len(results.lateral.storeys)
+    first = tables.modes.rows_model.rows[0]
+    assert float(first[1]) == pytest.approx(results.modes[0].period, abs=5e-4)
+    top = tables.storeys.rows_model.rows[-1]
+    assert float(top[16]) == pytest.approx(results.lateral.storeys[-1].torsion_ratio[0], abs=5e-4)
+
+
+def test_row_clicks_show_the_level_element_or_mode(window, qtbot):
+    tables = window.tables
+    click_row(tables.storeys, 4)
+    assert window.document.current_level == 5
+    with qtbot.waitSignal(window.document.mode_selected) as blocker:
+        click_row(tables.modes, 2)
+    assert blocker.args == [3] and window.document.current_mode == 3
+    rows = tables.elements.rows_model.rows
+    index = next(i for i, r in enumerate(rows) if r[0] == "W3" and r[1] == "2")
+    click_row(tables.elements, index)
+    assert window.document.selection == ("W3",) and window.document.current_level == 2
+    assert window.scene.element_items["W3"].selected
+
+
+def test_copy_gives_tab_separated_text(window):
+    table = window.tables.storeys
+    text = table.copy()
+    lines = text.strip().split("\n")
+    assert lines[0].split("\t")[:3] == ["Storey", "Level", "h, m"]
+    assert len(lines) == 1 + len(window.document.results.lateral.storeys)
+    assert QGuiApplication.clipboard().text() == text
+    table.selectRow(1)
+    assert table.copy().strip().split("\n")[1].split("\t")[0] == "2"
