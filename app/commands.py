@@ -95,11 +95,6 @@ def _set_parts(obj: Any, parts: list[str | int], value: Any) -> Any:
 # ------------------------------------------------------------------ elements
 
 
-def elements_on_level(project: Project, level: int) -> tuple[Element, ...]:
-    """Elements that span storey ``level`` (1-based): those drawn on that level's plan."""
-    return project.elements_in_storey(level)
-
-
 def new_element(project: Project, kind: ElementKind, start: Point, end: Point, bottom: int, top: int) -> Element:
     """An element of ``kind`` with the kind's default properties and a fresh id."""
     properties = default_properties(kind)

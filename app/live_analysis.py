@@ -22,7 +22,6 @@ from core.errors import AnalysisError
 from core.model import Project
 from core.results import Results
 
-
 INLINE_SECONDS = 0.03
 """Analyse at once (inside the edit) while the previous analysis took less than this."""
 

@@ -54,8 +54,15 @@ from core.model import ElementKind, Project
 
 FILE_FILTER = "Poise projects (*.poise);;All files (*)"
 RECENT_LIMIT = 8
-MENU_TITLES = {"file": "&File", "edit": "&Edit", "draw": "&Draw", "view": "&View", "level": "&Level",
-               "analysis": "&Analysis", "help": "&Help"}
+MENU_TITLES = {
+    "file": "&File",
+    "edit": "&Edit",
+    "draw": "&Draw",
+    "view": "&View",
+    "level": "&Level",
+    "analysis": "&Analysis",
+    "help": "&Help",
+}
 
 
 def icon(name: str) -> QIcon:
@@ -167,10 +174,20 @@ class MainWindow(QMainWindow):
         self.redo_action.setShortcut(key.Redo)
         self.redo_action.setIcon(icon("redo"))
         self.delete_action = self._action("&Delete elements", self.delete_selection, key.Delete)
-        self.rotate_action = self._action("&Rotate 90°", self.rotate_selection, "R", "rotate",
-                                          "Turn the selected elements a quarter turn counter-clockwise")
-        self.copy_levels_action = self._action("&Copy to levels…", self.copy_selection_dialog, "Ctrl+Shift+C",
-                                               "copy_levels", "Copy the selected elements to another span of levels")
+        self.rotate_action = self._action(
+            "&Rotate 90°",
+            self.rotate_selection,
+            "R",
+            "rotate",
+            "Turn the selected elements a quarter turn counter-clockwise",
+        )
+        self.copy_levels_action = self._action(
+            "&Copy to levels…",
+            self.copy_selection_dialog,
+            "Ctrl+Shift+C",
+            "copy_levels",
+            "Copy the selected elements to another span of levels",
+        )
         self.select_all_action = self._action("Select all on this level", self.select_all, key.SelectAll)
         self.fit_action = self._action("&Fit plan", self.plan_view.fit, "F", "fit", "Show the whole plan")
         self.zoom_in_action = self._action("Zoom &in", lambda: self.plan_view.zoom_by(1.25), key.ZoomIn)
@@ -178,19 +195,35 @@ class MainWindow(QMainWindow):
         self.grid_action = self._action("Show &grid", self._grid_toggled, "Ctrl+G")
         self.grid_action.setCheckable(True)
         self.grid_action.setChecked(True)
-        self.snap_action = self._action("&Snap", self._snap_toggled, "N", "snap",
-                                        "Snap to the grid, corners, edges, element ends and middles")
+        self.snap_action = self._action(
+            "&Snap", self._snap_toggled, "N", "snap", "Snap to the grid, corners, edges, element ends and middles"
+        )
         self.snap_action.setCheckable(True)
         self.snap_action.setChecked(True)
-        self.add_level_action = self._action("&Add level on top", self.add_level, None, "level_add",
-                                             "A new level above the roof with the top level's outline")
-        self.insert_level_action = self._action("&Insert level below", self.insert_level, None, "level_insert",
-                                                "A new level under the current one; elements passing it span it too")
-        self.duplicate_level_action = self._action("&Duplicate level with its elements", self.duplicate_level, None,
-                                                   "level_duplicate",
-                                                   "A copy of the current level directly above it, elements carried up")
-        self.delete_level_action = self._action("De&lete level", self.delete_level, None, "level_delete",
-                                                "Remove the current level and its storey")
+        self.add_level_action = self._action(
+            "&Add level on top",
+            self.add_level,
+            None,
+            "level_add",
+            "A new level above the roof with the top level's outline",
+        )
+        self.insert_level_action = self._action(
+            "&Insert level below",
+            self.insert_level,
+            None,
+            "level_insert",
+            "A new level under the current one; elements passing it span it too",
+        )
+        self.duplicate_level_action = self._action(
+            "&Duplicate level with its elements",
+            self.duplicate_level,
+            None,
+            "level_duplicate",
+            "A copy of the current level directly above it, elements carried up",
+        )
+        self.delete_level_action = self._action(
+            "De&lete level", self.delete_level, None, "level_delete", "Remove the current level and its storey"
+        )
         self.level_up_action = self._action("Level a&bove", lambda: self.step_level(1), "PgUp")
         self.level_down_action = self._action("Level bel&ow", lambda: self.step_level(-1), "PgDown")
         self.recompute_action = self._action("&Recompute now", self.document.flush_analysis, "F5")
@@ -198,8 +231,13 @@ class MainWindow(QMainWindow):
         self.tool_group = QActionGroup(self)
         self.tool_actions: dict[str, QAction] = {}
         for name, tool in self.tools.items():
-            action = self._action(tool.title, lambda name=name: self.set_tool(name), tool.shortcut, tool.icon,
-                                  f"{tool.title} ({tool.shortcut})")
+            action = self._action(
+                tool.title,
+                lambda name=name: self.set_tool(name),
+                tool.shortcut,
+                tool.icon,
+                f"{tool.title} ({tool.shortcut})",
+            )
             action.setCheckable(True)
             self.tool_group.addAction(action)
             self.tool_actions[name] = action
@@ -255,8 +293,11 @@ class MainWindow(QMainWindow):
         return [self.add_level_action, self.insert_level_action, self.duplicate_level_action, self.delete_level_action]
 
     def _make_panels(self) -> None:
-        left, right, bottom = (Qt.DockWidgetArea.LeftDockWidgetArea, Qt.DockWidgetArea.RightDockWidgetArea,
-                               Qt.DockWidgetArea.BottomDockWidgetArea)
+        left, right, bottom = (
+            Qt.DockWidgetArea.LeftDockWidgetArea,
+            Qt.DockWidgetArea.RightDockWidgetArea,
+            Qt.DockWidgetArea.BottomDockWidgetArea,
+        )
         self.levels_panel = LevelsPanel(self.document, self.level_actions())
         self.readouts = ReadoutsPanel(self.document)
         self.properties = PropertiesPanel(self.document)
@@ -271,7 +312,11 @@ class MainWindow(QMainWindow):
 
     def _stack_bottom_panels(self) -> None:
         """Panels at the bottom share the full width as tabs (the tables first, the last added shown)."""
-        docks = [d for d in self.findChildren(QDockWidget) if self.dockWidgetArea(d) == Qt.DockWidgetArea.BottomDockWidgetArea]
+        docks = [
+            d
+            for d in self.findChildren(QDockWidget)
+            if self.dockWidgetArea(d) == Qt.DockWidgetArea.BottomDockWidgetArea
+        ]
         for dock in docks[1:]:
             self.tabifyDockWidget(docks[0], dock)
         if docks:
@@ -316,8 +361,13 @@ class MainWindow(QMainWindow):
         selected = bool(self.document.selection)
         for action in (self.delete_action, self.rotate_action, self.copy_levels_action):
             action.setEnabled(selected)
-        for action in (self.add_level_action, self.insert_level_action, self.duplicate_level_action,
-                       self.delete_level_action, self.select_all_action):
+        for action in (
+            self.add_level_action,
+            self.insert_level_action,
+            self.duplicate_level_action,
+            self.delete_level_action,
+            self.select_all_action,
+        ):
             action.setEnabled(has_levels)
 
     def _update_title(self, *_: object) -> None:
@@ -355,7 +405,7 @@ class MainWindow(QMainWindow):
 
     def select_all(self) -> None:
         level = self.document.current_level
-        self.document.select([e.id for e in commands.elements_on_level(self.document.project, level)])
+        self.document.select([e.id for e in self.document.project.elements_in_storey(level)])
 
     def copy_selection_to(self, bottom: int, top: int) -> list[str]:
         """Copy the selected elements to span ``bottom``..``top``; returns the new ids (selected)."""
@@ -422,7 +472,9 @@ class MainWindow(QMainWindow):
             changed, removed = commands.delete_level(project, number)
             self.document.apply(changed, f"Delete {name}")
             if removed:
-                self.status.show_hint(f"Deleted {name} and {describe(removed)} that stood only in its storey (Undo restores).")
+                self.status.show_hint(
+                    f"Deleted {name} and {describe(removed)} that stood only in its storey (Undo restores)."
+                )
 
     # ------------------------------------------------------------------ files
 

@@ -28,8 +28,10 @@ class Quantity:
 
     def parse(self, text: str) -> float:
         """The internal value of typed ``text``; ValueError names what could not be read."""
-        cleaned = text.strip().replace(",", ".") if text.count(",") == 1 and "." not in text else text.strip()
-        if cleaned.endswith(self.unit) and self.unit:
+        cleaned = text.strip()
+        if cleaned.count(",") == 1 and "." not in cleaned:  # a decimal comma
+            cleaned = cleaned.replace(",", ".")
+        if self.unit and cleaned.endswith(self.unit):
             cleaned = cleaned[: -len(self.unit)].strip()
         try:
             value = float(cleaned)
@@ -47,16 +49,14 @@ INERTIA = Quantity("10⁶ mm⁴", 1e6, 2)
 MODULUS = Quantity("GPa", 1e-6, 2)
 STIFFNESS = Quantity("kN/m", 1.0, 0)
 AREA_LOAD = Quantity("kPa", 1.0, 2)
-MASS = Quantity("t", 1.0, 2)
-RATIO = Quantity("", 1.0, 3)
 PERCENT = Quantity("%", 100.0, 2)
-ACCELERATION_G = Quantity("g", 1.0, 3)
-ANGLE = Quantity("°", 180.0 / math.pi, 2)
-
-
-def metres(value: float, decimals: int = 2) -> str:
-    """A length for readouts: ``12.35 m``."""
-    return f"{value:.{decimals}f} m"
+PLAIN = Quantity("", 1.0, 3)
+"""A dimensionless figure (ratios, factors) or a value whose unit the label states."""
+DRIFT = Quantity("", 1.0, 4)
+DEGREES = Quantity("°", 1.0, 2)
+"""An angle already in degrees (the model keeps plan angles only as end points)."""
+ACCELERATION = Quantity("g", 1.0, 3)
+SECONDS = Quantity("s", 1.0, 2)
 
 
 def degrees_of(dx: float, dy: float) -> float:

@@ -21,12 +21,12 @@ from pathlib import Path
 os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
 sys.path.insert(0, str(Path(__file__).resolve().parent.parent))
 
-from PySide6.QtCore import QPointF, QSettings, Qt  # noqa: E402
-from PySide6.QtTest import QTest  # noqa: E402
-from PySide6.QtWidgets import QApplication, QDockWidget  # noqa: E402
+from PySide6.QtCore import QPointF, QSettings, Qt
+from PySide6.QtTest import QTest
+from PySide6.QtWidgets import QApplication, QDockWidget
 
-from app.main_window import MainWindow  # noqa: E402
-from app.resources import sample_projects  # noqa: E402
+from app.main_window import MainWindow
+from app.resources import sample_projects
 
 STEPS = 120
 STEP_METRES = 0.25
@@ -52,7 +52,9 @@ def bench(window: MainWindow, path: Path) -> dict[str, float]:
     if (centre[0] - x0) * nx + (centre[1] - y0) * ny < 0:
         nx, ny = -nx, -ny
     QTest.mouseMove(viewport, view.mapFromScene(QPointF(x0, y0)))
-    QTest.mousePress(viewport, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, view.mapFromScene(QPointF(x0, y0)))
+    QTest.mousePress(
+        viewport, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, view.mapFromScene(QPointF(x0, y0))
+    )
     app.processEvents()
     step_times, analysis_times, failed = [], [], 0
     offsets = [STEP_METRES * (i % 40 if (i // 40) % 2 == 0 else 40 - i % 40) for i in range(1, STEPS + 1)]
@@ -93,8 +95,10 @@ def main() -> None:
         mode_dock = next((d for d in window.findChildren(QDockWidget) if d.objectName() == "modeShapesPanel"), None)
         for title in ("default panels (mode shapes tab in front)", "mode-shape panel hidden"):
             print(f"\n{title}")
-            print(f"{'sample':36} {'levels':>6} {'elems':>5} {'median':>7} {'p90':>7} {'max':>7} {'analyse':>8} "
-                  f"{'steps/s':>8} {'unstable':>8}")
+            print(
+                f"{'sample':36} {'levels':>6} {'elems':>5} {'median':>7} {'p90':>7} {'max':>7} {'analyse':>8} "
+                f"{'steps/s':>8} {'unstable':>8}"
+            )
             for path in sample_projects():
                 r = bench(window, path)
                 print(

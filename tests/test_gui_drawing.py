@@ -153,3 +153,18 @@ def test_copy_to_levels_makes_new_elements(qtbot, tmp_path):
     copy = window.document.project.element(new_ids[0])
     assert (copy.start, copy.end, copy.bottom, copy.top) == ((0, 6), (0, 12), 1, 2)
     assert window.document.selection == tuple(new_ids)
+
+
+def test_underlay_is_shown_locked_and_snappable(qtbot, tmp_path):
+    window = make_window(qtbot, tmp_path, one_storey())
+    segments = [((5.37, 3.11), (14.52, 3.11)), ((14.52, 3.11), (14.52, 11.8))]
+    window.document.set_underlay(1, segments)
+    settle(window)
+    underlay = window.scene._underlay
+    assert underlay is not None and not underlay.acceptedMouseButtons()
+    window.set_tool("place-braced_frame")
+    drag(window, (5.4, 3.15), (14.5, 3.1))
+    (element,) = window.document.project.elements
+    assert (element.start, element.end) == ((5.37, 3.11), (14.52, 3.11))
+    window.document.set_current_level(1)
+    assert window.document.underlay(2) == []

@@ -5,7 +5,6 @@ from __future__ import annotations
 from dataclasses import replace
 
 import pytest
-
 from PySide6.QtCore import QPoint, Qt
 from PySide6.QtTest import QTest
 
@@ -18,7 +17,9 @@ def three_storeys() -> Project:
     """Levels 1–3; B1 over all three storeys, B2 only in storey 2, S1 (a spring) in storeys 2–3."""
     levels = tuple(Level(f"Level {i}", h, RECTANGLE_36_18) for i, h in ((1, 4.0), (2, 3.5), (3, 3.0)))
     spring = Element("S1", (36.0, 0.0), (36.0, 18.0), 1, 3, Spring(storey_stiffness=(2.0e5, 3.0e5)))
-    return Project(levels=levels, elements=(frame("B1", (0, 6), (0, 12), 0, 3), frame("B2", (10, 0), (16, 0), 1, 2), spring))
+    return Project(
+        levels=levels, elements=(frame("B1", (0, 6), (0, 12), 0, 3), frame("B2", (10, 0), (16, 0), 1, 2), spring)
+    )
 
 
 def spans(project: Project) -> dict[str, tuple[int, int]]:
@@ -62,7 +63,9 @@ def test_strip_bands_are_to_scale_and_a_click_picks_the_level(qtbot, tmp_path):
     assert heights[0] / heights[2] == pytest.approx(4.0 / 3.0, rel=1e-6)
     assert bands[0].top() > bands[1].top() > bands[2].top(), "level 1 at the bottom"
     centre = bands[2].center()
-    QTest.mouseClick(strip, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, QPoint(int(centre.x()), int(centre.y())))
+    QTest.mouseClick(
+        strip, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, QPoint(int(centre.x()), int(centre.y()))
+    )
     assert window.document.current_level == 3
     assert set(window.scene.element_items) == {"B1", "S1"}
 

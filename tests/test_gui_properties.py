@@ -9,7 +9,7 @@ import pytest
 from PySide6.QtCore import Qt
 from PySide6.QtTest import QTest
 
-from core.model import ElementKind, ShearWall
+from core.model import ShearWall
 from tests.test_gui_support import balanced_box, make_window, settle
 
 

@@ -6,8 +6,10 @@ from __future__ import annotations
 import pytest
 from PySide6.QtGui import QGuiApplication
 
+from app.panels.verdicts import worst
 from app.resources import sample_path
 from core.fileio import load_project
+from core.lateral_results import Status, Verdict
 from tests.test_gui_support import make_window
 
 
@@ -54,3 +56,15 @@ def test_copy_gives_tab_separated_text(window):
     assert QGuiApplication.clipboard().text() == text
     table.selectRow(1)
     assert table.copy().strip().split("\n")[1].split("\t")[0] == "2"
+
+
+def test_the_worst_verdict_is_the_one_nearest_failing():
+    def verdict(value, limit, status, storey):
+        return Verdict("x", value, limit, status, "clause", storey)
+
+    drifts = [verdict(0.002, 0.005, Status.PASS, 1), verdict(0.004, 0.005, Status.PASS, 2)]
+    assert worst(drifts).storey == 2
+    radii = [verdict(1.5, 1.0, Status.PASS, 1), verdict(1.1, 1.0, Status.PASS, 2), verdict(1.3, 1.0, Status.PASS, 3)]
+    assert worst(radii).storey == 2
+    mixed = [verdict(0.9, 1.0, Status.FAIL, 1), verdict(0.7, 1.0, Status.FAIL, 2), verdict(1.2, 1.0, Status.PASS, 3)]
+    assert worst(mixed).storey == 2

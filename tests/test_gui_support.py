@@ -49,7 +49,9 @@ def view_point(window: MainWindow, x: float, y: float) -> QPoint:
     return window.plan_view.mapFromScene(QPointF(x, y))
 
 
-def click(window: MainWindow, x: float, y: float, button=Qt.MouseButton.LeftButton, modifiers=Qt.KeyboardModifier.NoModifier):
+def click(
+    window: MainWindow, x: float, y: float, button=Qt.MouseButton.LeftButton, modifiers=Qt.KeyboardModifier.NoModifier
+):
     viewport = window.plan_view.viewport()
     pos = view_point(window, x, y)
     QTest.mouseMove(viewport, pos)

@@ -7,8 +7,6 @@ scene for ``pixel`` (metres per device pixel) to size their bounding box and pic
 
 from __future__ import annotations
 
-import math
-
 from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
 from PySide6.QtGui import QBrush, QColor, QFont, QPainter, QPainterPath, QPainterPathStroker, QPolygonF
 from PySide6.QtWidgets import QGraphicsItem, QGraphicsPathItem, QStyleOptionGraphicsItem, QWidget
@@ -256,8 +254,3 @@ def _draw_label(painter: QPainter, text: str, centre: QPointF, n: QPointF, offse
     painter.drawRoundedRect(box, 3, 3)
     painter.setPen(colour.darker(140))
     painter.drawText(box, Qt.AlignmentFlag.AlignCenter, text)
-
-
-def angle_of(element: Element) -> float:
-    """Direction of the element in degrees, counter-clockwise from +x."""
-    return math.degrees(math.atan2(element.end[1] - element.start[1], element.end[0] - element.start[0]))

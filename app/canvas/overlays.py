@@ -68,7 +68,9 @@ class OverlayItem(QGraphicsItem):
         xs, ys = [p[0] for p in points], [p[1] for p in points]
         ax, ay = self.data.accidental or (0.0, 0.0)
         m = 140 * pixel
-        return QRectF(min(xs) - ax - m, min(ys) - ay - m, max(xs) - min(xs) + 2 * (ax + m), max(ys) - min(ys) + 2 * (ay + m))
+        return QRectF(
+            min(xs) - ax - m, min(ys) - ay - m, max(xs) - min(xs) + 2 * (ax + m), max(ys) - min(ys) + 2 * (ay + m)
+        )
 
     def paint(self, painter: QPainter, option: QStyleOptionGraphicsItem, widget: QWidget | None = None) -> None:
         if self.data is None:

@@ -13,7 +13,6 @@ from PySide6.QtWidgets import QGraphicsItem, QGraphicsScene
 
 from app.canvas.items import ElementItem, FloorItem, UnderlayItem
 from app.canvas.overlays import OverlayItem, overlay_data
-from app.commands import elements_on_level
 from app.document import ProjectDocument
 from core.model import Element, Level
 
@@ -72,7 +71,7 @@ class PlanScene(QGraphicsScene):
             self._floor.set_level(level)
         self._sync_below(project.levels[: max(number - 1, 0)], [e for e in project.elements if e.top < number])
         self._sync_underlay(self.document.underlay(number))
-        self._sync_elements(elements_on_level(project, number) if level is not None else ())
+        self._sync_elements(project.elements_in_storey(number) if level is not None else ())
         self._mark()
         self._results()
 

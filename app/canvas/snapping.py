@@ -25,9 +25,6 @@ class SnapKind(StrEnum):
     FREE = "free"
 
 
-POINT_KINDS = (SnapKind.VERTEX, SnapKind.END, SnapKind.MIDPOINT)
-
-
 @dataclass(frozen=True)
 class Snap:
     point: Point

@@ -280,7 +280,11 @@ class PlanView(QGraphicsView):
             return "No floor yet: draw the outline of level 1 (Outline or Rectangle tool)."
         where = ""
         if error.levels:
-            names = [document.shown_project.levels[i - 1].name for i in error.levels if 1 <= i <= len(document.shown_project.levels)]
+            names = [
+                document.shown_project.levels[i - 1].name
+                for i in error.levels
+                if 1 <= i <= len(document.shown_project.levels)
+            ]
             where = f" [{', '.join(names)}]"
         return f"Cannot analyse this layout{where}: {error.message}"
 

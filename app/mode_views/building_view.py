@@ -59,8 +59,9 @@ class BuildingMotionView(pg.PlotWidget):
     view_turned = Signal()
 
     def __init__(self, parent: object = None) -> None:
-        self._box = _TurntableBox()
-        super().__init__(parent=parent, background=PAPER, viewBox=self._box)
+        box = _TurntableBox()
+        super().__init__(parent=parent, background=PAPER, viewBox=box)
+        self._box = box
         self.setObjectName("modeBuildingView")
         item = self.getPlotItem()
         item.hideAxis("left")

@@ -243,7 +243,7 @@ class ModeViewsPanel(QWidget):
 
         Off screen the work waits (``_stale``) until the panel is shown again, so a drag in the
         editor pays nothing for a panel behind another tab."""
-        if False and not self.on_screen:
+        if not self.on_screen:
             self._stale = True
             self._update_ticking()
             return

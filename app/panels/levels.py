@@ -105,15 +105,20 @@ class LevelStrip(QWidget):
     def _tooltip(self, number: int) -> str:
         project = self.document.shown_project
         level = project.levels[number - 1]
-        lines = [f"<b>{level.name}</b>", f"storey height {level.height:.2f} m, floor at +{project.elevations[number - 1]:.2f} m"]
+        lines = [
+            f"<b>{level.name}</b>",
+            f"storey height {level.height:.2f} m, floor at +{project.elevations[number - 1]:.2f} m",
+        ]
         results = self.document.results
         if results is not None and number <= len(results.floors):
             s = results.lateral.storey(number)
             lines.append(f"mass {results.floors[number - 1].mass:.1f} t")
             lines.append(f"torsion ratio x {s.torsion_ratio[0]:.3f}, y {s.torsion_ratio[1]:.3f}")
             lines.append(f"drift ratio x {s.drift_ratio[0]:.4f}, y {s.drift_ratio[1]:.4f} (at the mass centre)")
-        lines.append("<small>Chips: worst torsion ratio and design drift ratio of the storey, coloured by the "
-                     "worst torsion and drift checks of the rule set (grey: not judged).</small>")
+        lines.append(
+            "<small>Chips: worst torsion ratio and design drift ratio of the storey, coloured by the "
+            "worst torsion and drift checks of the rule set (grey: not judged).</small>"
+        )
         return "<br>".join(lines)
 
     # ------------------------------------------------------------------ drawing
@@ -125,8 +130,11 @@ class LevelStrip(QWidget):
         bands = self.bands()
         if not bands:
             painter.setPen(style.FLOOR_EDGE)
-            painter.drawText(self.rect().adjusted(12, 12, -12, -12), Qt.TextFlag.TextWordWrap | Qt.AlignmentFlag.AlignCenter,
-                             "No levels yet.\nDraw the floor outline on the plan to create level 1.")
+            painter.drawText(
+                self.rect().adjusted(12, 12, -12, -12),
+                Qt.TextFlag.TextWordWrap | Qt.AlignmentFlag.AlignCenter,
+                "No levels yet.\nDraw the floor outline on the plan to create level 1.",
+            )
             painter.end()
             return
         document = self.document
@@ -175,20 +183,27 @@ class LevelStrip(QWidget):
             painter.setPen(QColor("#6d695f"))
             painter.drawText(text_box, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignBottom, f"h = {height:.2f} m")
         else:
-            painter.drawText(text_box, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, f"{name} · {height:.2f} m")
+            painter.drawText(
+                text_box, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, f"{name} · {height:.2f} m"
+            )
 
     def _chip_boxes(self, band: QRectF) -> list[QRectF]:
         """The torsion and drift chips of a band, side by side at its right end."""
         height = min(CHIP_HEIGHT, band.height() - 4)
         top = band.center().y() - height / 2
         right = band.right() - 10
-        return [QRectF(right - 2 * CHIP_WIDTH - 3, top, CHIP_WIDTH, height), QRectF(right - CHIP_WIDTH, top, CHIP_WIDTH, height)]
+        return [
+            QRectF(right - 2 * CHIP_WIDTH - 3, top, CHIP_WIDTH, height),
+            QRectF(right - CHIP_WIDTH, top, CHIP_WIDTH, height),
+        ]
 
     def _draw_header(self, painter: QPainter, band: QRectF) -> None:
         painter.setFont(QFont("DejaVu Sans", 7))
         painter.setPen(QColor("#6d695f"))
         for box, text in zip(self._chip_boxes(band), ("torsion", "drift"), strict=True):
-            painter.drawText(QRectF(box.left() - 6, 0, box.width() + 12, TOP_PIXELS), Qt.AlignmentFlag.AlignCenter, text)
+            painter.drawText(
+                QRectF(box.left() - 6, 0, box.width() + 12, TOP_PIXELS), Qt.AlignmentFlag.AlignCenter, text
+            )
 
     def _draw_chips(self, painter: QPainter, band: QRectF, state) -> None:
         texts = [f"{state.torsion_ratio:.2f}", f"{100 * state.drift_ratio:.2f} %"]
@@ -217,8 +232,13 @@ def level_rows(document: ProjectDocument, number: int) -> list[Row]:
     return [
         Row("Name", "name", "text"),
         Row("Storey height", "height", "number", LENGTH, tip="Height of the storey below this floor."),
-        Row("Seismic weight", "seismic_weight", "number", AREA_LOAD,
-            tip="Dead load plus the combined share of imposed load, per floor area."),
+        Row(
+            "Seismic weight",
+            "seismic_weight",
+            "number",
+            AREA_LOAD,
+            tip="Dead load plus the combined share of imposed load, per floor area.",
+        ),
         Row("Floor at", kind="readonly", getter=lambda _lv: f"+{document.shown_project.elevations[number - 1]:.2f} m"),
         Row("Floor area", kind="readonly", getter=result(lambda r, n: f"{r.floors[n - 1].area:.1f} m²")),
         Row("Mass", kind="readonly", getter=result(lambda r, n: f"{r.floors[n - 1].mass:.1f} t")),
@@ -274,6 +294,8 @@ class LevelsPanel(QWidget):
         level = changed[0]
         number = self.document.current_level
         old = self.document.project.levels[number - 1]
-        what = next((f.name for f in dataclasses.fields(old) if getattr(old, f.name) != getattr(level, f.name)), "level")
+        what = next(
+            (f.name for f in dataclasses.fields(old) if getattr(old, f.name) != getattr(level, f.name)), "level"
+        )
         self.document.apply(replace_level(self.document.project, number, level), f"Change {old.name}: {what}")
         return None

@@ -14,7 +14,21 @@ from app.canvas.style import KIND_LABELS
 from app.commands import respan, set_length_and_angle
 from app.document import ProjectDocument
 from app.panels.fields import FieldForm, Row
-from app.units import AREA, INERTIA, LENGTH, MODULUS, PERCENT, RATIO, STIFFNESS, THICKNESS, Quantity, degrees_of
+from app.units import (
+    ACCELERATION,
+    AREA,
+    DEGREES,
+    DRIFT,
+    INERTIA,
+    LENGTH,
+    MODULUS,
+    PERCENT,
+    PLAIN,
+    SECONDS,
+    STIFFNESS,
+    THICKNESS,
+    degrees_of,
+)
 from core.errors import ModelError
 from core.model import (
     CONCRETE_E,
@@ -33,11 +47,6 @@ from core.model import (
     SystemType,
     default_properties,
 )
-
-DEGREES = Quantity("°", 1.0, 2)
-ACCELERATION = Quantity("g", 1.0, 3)
-DRIFT = Quantity("", 1.0, 4)
-PLAIN = Quantity("", 1.0, 3)
 
 
 def _material_of(element: Element) -> str:
@@ -83,24 +92,57 @@ def element_rows(project: Project, elements: list[Element]) -> list[Row]:
     if single:
         rows.append(Row("Id", "id", "text"))
     rows.append(
-        Row("Kind", kind="choice", choices=[(label, kind) for kind, label in KIND_LABELS.items()],
-            getter=lambda e: e.kind, setter=_with_kind,
-            tip="Changing the kind gives the element that kind's default sections.")
+        Row(
+            "Kind",
+            kind="choice",
+            choices=[(label, kind) for kind, label in KIND_LABELS.items()],
+            getter=lambda e: e.kind,
+            setter=_with_kind,
+            tip="Changing the kind gives the element that kind's default sections.",
+        )
     )
-    rows.append(Row("From level", kind="choice", choices=bottoms, getter=lambda e: e.bottom,
-                    setter=lambda e, v: respan(e, v, e.top), tip="The element stands on this level (Base = the foundation)."))
-    rows.append(Row("To level", kind="choice", choices=tops, getter=lambda e: e.top,
-                    setter=lambda e, v: respan(e, e.bottom, v), tip="The highest floor the element reaches."))
+    rows.append(
+        Row(
+            "From level",
+            kind="choice",
+            choices=bottoms,
+            getter=lambda e: e.bottom,
+            setter=lambda e, v: respan(e, v, e.top),
+            tip="The element stands on this level (Base = the foundation).",
+        )
+    )
+    rows.append(
+        Row(
+            "To level",
+            kind="choice",
+            choices=tops,
+            getter=lambda e: e.top,
+            setter=lambda e, v: respan(e, e.bottom, v),
+            tip="The highest floor the element reaches.",
+        )
+    )
     if single:
         rows += [
             Row("Start x", "start[0]", "number", LENGTH),
             Row("Start y", "start[1]", "number", LENGTH),
             Row("End x", "end[0]", "number", LENGTH),
             Row("End y", "end[1]", "number", LENGTH),
-            Row("Length", kind="number", quantity=LENGTH, getter=lambda e: e.length,
-                setter=lambda e, v: set_length_and_angle(e, v, _angle(e)), tip="Changes the end point; the start stays."),
-            Row("Angle", kind="number", quantity=DEGREES, getter=_angle, setter=_with_angle,
-                tip="Direction from start to end, counter-clockwise from +x."),
+            Row(
+                "Length",
+                kind="number",
+                quantity=LENGTH,
+                getter=lambda e: e.length,
+                setter=lambda e, v: set_length_and_angle(e, v, _angle(e)),
+                tip="Changes the end point; the start stays.",
+            ),
+            Row(
+                "Angle",
+                kind="number",
+                quantity=DEGREES,
+                getter=_angle,
+                setter=_with_angle,
+                tip="Direction from start to end, counter-clockwise from +x.",
+            ),
         ]
     if len(kinds) != 1:
         return rows
@@ -108,11 +150,20 @@ def element_rows(project: Project, elements: list[Element]) -> list[Row]:
     materials = [("Steel", Material.STEEL.value), ("Concrete", Material.CONCRETE.value), ("Custom", "custom")]
     if isinstance(sample, BracedFrame):
         rows += [
-            Row("Brace pattern", "properties.pattern", "choice",
-                choices=[("X (two diagonals)", BracePattern.CROSS), ("Single diagonal", BracePattern.SINGLE),
-                         ("Chevron", BracePattern.CHEVRON)]),
+            Row(
+                "Brace pattern",
+                "properties.pattern",
+                "choice",
+                choices=[
+                    ("X (two diagonals)", BracePattern.CROSS),
+                    ("Single diagonal", BracePattern.SINGLE),
+                    ("Chevron", BracePattern.CHEVRON),
+                ],
+            ),
             Row("Bays", "properties.bays", "int"),
-            Row("Tension only", "properties.tension_only", "check", tip="Cross pattern: the compression brace buckles."),
+            Row(
+                "Tension only", "properties.tension_only", "check", tip="Cross pattern: the compression brace buckles."
+            ),
             Row("Brace area", "properties.brace_area", "number", AREA),
             Row("Column area", "properties.column_area", "number", AREA),
             Row("Beam area", "properties.beam_area", "number", AREA),
@@ -121,13 +172,24 @@ def element_rows(project: Project, elements: list[Element]) -> list[Row]:
         ]
     elif isinstance(sample, ShearWall):
         rows += [
-            Row("Material", kind="choice", choices=materials, getter=_material_of, setter=_with_material,
-                tip="Sets the material's typical wall (concrete 250 mm cracked, or a steel plate)."),
+            Row(
+                "Material",
+                kind="choice",
+                choices=materials,
+                getter=_material_of,
+                setter=_with_material,
+                tip="Sets the material's typical wall (concrete 250 mm cracked, or a steel plate).",
+            ),
             Row("Thickness", "properties.thickness", "number", THICKNESS),
             Row("Modulus E", "properties.modulus", "number", MODULUS),
             Row("Poisson ratio", "properties.poisson", "number", PLAIN),
-            Row("Stiffness factor", "properties.stiffness_factor", "number", PLAIN,
-                tip="Effective share of the gross stiffness after cracking (EN 1998-1 §4.3.1(7): 0.5)."),
+            Row(
+                "Stiffness factor",
+                "properties.stiffness_factor",
+                "number",
+                PLAIN,
+                tip="Effective share of the gross stiffness after cracking (EN 1998-1 §4.3.1(7): 0.5).",
+            ),
         ]
     elif isinstance(sample, MomentFrame):
         rows += [
@@ -141,8 +203,15 @@ def element_rows(project: Project, elements: list[Element]) -> list[Row]:
             Row("Stiffness factor", "properties.stiffness_factor", "number", PLAIN),
         ]
     elif isinstance(sample, Spring):
-        rows.append(Row("Storey stiffness", "properties.storey_stiffness", "numbers", STIFFNESS,
-                        tip="One value per storey spanned, bottom storey first, separated by commas."))
+        rows.append(
+            Row(
+                "Storey stiffness",
+                "properties.storey_stiffness",
+                "numbers",
+                STIFFNESS,
+                tip="One value per storey spanned, bottom storey first, separated by commas.",
+            )
+        )
     return rows
 
 
@@ -153,16 +222,33 @@ def project_rows(project: Project) -> list[Row]:
         Row("Project", "name", "text"),
         Row("Job number", "job_number", "text"),
         Row("Engineer", "engineer", "text"),
-        Row("Judge by", "settings.rule_set", "choice",
+        Row(
+            "Judge by",
+            "settings.rule_set",
+            "choice",
             choices=[("EN 1998-1 limits", RuleSet.EN1998), ("ASCE 7 limits", RuleSet.ASCE7)],
-            tip="Which code's limits give pass / warn / fail; both sets of figures are computed."),
-        Row("Static load", "settings.load_method", "choice",
-            choices=[("EN 1998-1 spectrum", LoadMethod.EN1998), ("ASCE 7 spectrum", LoadMethod.ASCE7),
-                     ("Base shear coefficient", LoadMethod.COEFFICIENT)]),
+            tip="Which code's limits give pass / warn / fail; both sets of figures are computed.",
+        ),
+        Row(
+            "Static load",
+            "settings.load_method",
+            "choice",
+            choices=[
+                ("EN 1998-1 spectrum", LoadMethod.EN1998),
+                ("ASCE 7 spectrum", LoadMethod.ASCE7),
+                ("Base shear coefficient", LoadMethod.COEFFICIENT),
+            ],
+        ),
     ]
     if s.load_method is LoadMethod.EN1998:
         rows += [
-            Row("a_g", "settings.eurocode8.ag", "number", ACCELERATION, tip="Design ground acceleration on type A ground."),
+            Row(
+                "a_g",
+                "settings.eurocode8.ag",
+                "number",
+                ACCELERATION,
+                tip="Design ground acceleration on type A ground.",
+            ),
             Row("Ground type", "settings.eurocode8.ground_type", "choice", choices=[(g, g) for g in "ABCDE"]),
             Row("Spectrum type", "settings.eurocode8.spectrum_type", "choice", choices=[("Type 1", 1), ("Type 2", 2)]),
             Row("Behaviour factor q", "settings.eurocode8.behaviour_factor", "number", PLAIN),
@@ -173,7 +259,7 @@ def project_rows(project: Project) -> list[Row]:
             Row("S_DS", "settings.asce7.sds", "number", ACCELERATION),
             Row("S_D1", "settings.asce7.sd1", "number", ACCELERATION),
             Row("S_1", "settings.asce7.s1", "number", ACCELERATION),
-            Row("T_L", "settings.asce7.long_period", "number", Quantity("s", 1.0, 2)),
+            Row("T_L", "settings.asce7.long_period", "number", SECONDS),
             Row("R", "settings.asce7.response_modification", "number", PLAIN),
             Row("I_e", "settings.asce7.importance", "number", PLAIN),
             Row("C_d", "settings.asce7.deflection_amplification", "number", PLAIN),
@@ -181,12 +267,25 @@ def project_rows(project: Project) -> list[Row]:
     else:
         rows.append(Row("Base shear / weight", "settings.base_shear_coefficient", "number", PLAIN))
     rows += [
-        Row("System", "settings.system_type", "choice",
-            choices=[("Steel moment frame", SystemType.STEEL_MOMENT), ("Concrete moment frame", SystemType.CONCRETE_MOMENT),
-                     ("Eccentric braces", SystemType.ECCENTRIC_BRACED), ("Other", SystemType.OTHER)],
-            tip="For the codes' approximate period formulas."),
-        Row("Accidental eccentricity", "settings.accidental_eccentricity", "number", PERCENT,
-            tip="Share of the plan dimension across the load (EN 1998-1 §4.3.2, ASCE 7 §12.8.4.2: 5 %)."),
+        Row(
+            "System",
+            "settings.system_type",
+            "choice",
+            choices=[
+                ("Steel moment frame", SystemType.STEEL_MOMENT),
+                ("Concrete moment frame", SystemType.CONCRETE_MOMENT),
+                ("Eccentric braces", SystemType.ECCENTRIC_BRACED),
+                ("Other", SystemType.OTHER),
+            ],
+            tip="For the codes' approximate period formulas.",
+        ),
+        Row(
+            "Accidental eccentricity",
+            "settings.accidental_eccentricity",
+            "number",
+            PERCENT,
+            tip="Share of the plan dimension across the load (EN 1998-1 §4.3.2, ASCE 7 §12.8.4.2: 5 %).",
+        ),
         Row("Drift limit", "settings.drift_limit", "number", DRIFT, tip="Storey drift over storey height."),
         Row("Damping", "settings.damping_ratio", "number", PERCENT),
         Row("Centred load cases", "settings.include_centred_case", "check", tip="Add the cases without eccentricity."),

@@ -9,6 +9,7 @@ move); hovering a check line shows its full clause and note.
 from __future__ import annotations
 
 from dataclasses import dataclass, field
+from typing import ClassVar
 
 from PySide6.QtCore import QEvent, QPoint, QRectF, Qt
 from PySide6.QtGui import QColor, QFont, QFontMetrics, QHelpEvent, QPainter, QPaintEvent
@@ -42,7 +43,7 @@ class Row:
 class ReadoutBoard(QWidget):
     """Paints a list of :class:`Row`; its height follows the number of rows."""
 
-    HEIGHTS = {"heading": 20, "torsion": 48, "period": 16, "check": 30}
+    HEIGHTS: ClassVar[dict[str, int]] = {"heading": 20, "torsion": 48, "period": 16, "check": 30}
 
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
@@ -61,7 +62,9 @@ class ReadoutBoard(QWidget):
     def _height(self, row: Row) -> int:
         if row.kind == "message":
             metrics = QFontMetrics(BODY)
-            box = metrics.boundingRect(0, 0, max(self.width() - 2 * MARGIN, 100), 1000, Qt.TextFlag.TextWordWrap, row.texts[0])
+            box = metrics.boundingRect(
+                0, 0, max(self.width() - 2 * MARGIN, 100), 1000, Qt.TextFlag.TextWordWrap, row.texts[0]
+            )
             return box.height() + 8
         return self.HEIGHTS[row.kind]
 
@@ -133,7 +136,9 @@ class ReadoutBoard(QWidget):
             painter.setFont(BIG)
             painter.setPen(self.torsion_colours[i])
             offset = QFontMetrics(BODY).horizontalAdvance(label + " ")
-            painter.drawText(cell.adjusted(offset, -2, 0, -14), Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, value)
+            painter.drawText(
+                cell.adjusted(offset, -2, 0, -14), Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, value
+            )
             painter.setFont(SMALL)
             painter.setPen(GREY)
             text = painter.fontMetrics().elidedText(note, Qt.TextElideMode.ElideRight, int(cell.width()))
@@ -144,7 +149,11 @@ class ReadoutBoard(QWidget):
         painter.setPen(style.FLOOR_EDGE)
         name, period, kind = row.texts
         painter.drawText(box.adjusted(4, 0, 0, 0), Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, name)
-        painter.drawText(QRectF(box.left() + 28, box.top(), 62, box.height()), Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter, period)
+        painter.drawText(
+            QRectF(box.left() + 28, box.top(), 62, box.height()),
+            Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter,
+            period,
+        )
         painter.drawText(box.adjusted(100, 0, 0, 0), Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, kind)
 
     def _paint_check(self, painter: QPainter, box: QRectF, row: Row) -> None:
@@ -154,17 +163,27 @@ class ReadoutBoard(QWidget):
         painter.drawEllipse(QRectF(box.left() + 2, box.top() + 5, 9, 9))
         painter.setFont(HEADING)
         painter.setPen(row.colour)
-        painter.drawText(QRectF(box.left() + 16, box.top() + 1, 40, 16), Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, word)
+        painter.drawText(
+            QRectF(box.left() + 16, box.top() + 1, 40, 16),
+            Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter,
+            word,
+        )
         painter.setFont(BODY)
         painter.setPen(style.FLOOR_EDGE)
         text_box = QRectF(box.left() + 54, box.top() + 1, box.width() - 54, 16)
-        painter.drawText(text_box, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter,
-                         painter.fontMetrics().elidedText(name, Qt.TextElideMode.ElideRight, int(text_box.width())))
+        painter.drawText(
+            text_box,
+            Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter,
+            painter.fontMetrics().elidedText(name, Qt.TextElideMode.ElideRight, int(text_box.width())),
+        )
         painter.setFont(SMALL)
         painter.setPen(GREY)
         detail_box = QRectF(box.left() + 54, box.top() + 16, box.width() - 54, 12)
-        painter.drawText(detail_box, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter,
-                         painter.fontMetrics().elidedText(detail, Qt.TextElideMode.ElideRight, int(detail_box.width())))
+        painter.drawText(
+            detail_box,
+            Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter,
+            painter.fontMetrics().elidedText(detail, Qt.TextElideMode.ElideRight, int(detail_box.width())),
+        )
 
     def _paint_message(self, painter: QPainter, box: QRectF, row: Row) -> None:
         painter.setFont(BODY)
@@ -211,8 +230,10 @@ class ReadoutsPanel(QWidget):
         results = document.results
         if results is None:
             if document.error is not None and document.shown_project.levels:
-                rows = [Row("heading", ("Cannot analyse this layout",), style.DIAGNOSTIC),
-                        Row("message", (document.error.message,), style.DIAGNOSTIC)]
+                rows = [
+                    Row("heading", ("Cannot analyse this layout",), style.DIAGNOSTIC),
+                    Row("message", (document.error.message,), style.DIAGNOSTIC),
+                ]
             else:
                 rows = [Row("message", (document.error.message if document.error else "Analysing…",))]
             self.board.set_rows(rows)
@@ -227,7 +248,7 @@ class ReadoutsPanel(QWidget):
             storey = lateral.storeys[values.index(worst_value)].name
             verdicts = [v for v in judged if v.direction == d]
             status = max(verdicts, key=lambda v: v.value).status if verdicts else None
-            colours.append(colour_of(status))
+            colours.append(colour_of(status) if status else QColor(style.FLOOR_EDGE))
             word = STATUS_WORDS[status] if status else "not judged by these limits"
             texts += [f"load in {d}:", fmt_number(worst_value, 2), f"{storey} · {word}"]
         self.board.torsion_colours = (colours[0], colours[1])
@@ -238,12 +259,18 @@ class ReadoutsPanel(QWidget):
         ]
         rows += [Row("period", (f"T{m.number}", f"{m.period:.3f} s", mode_type(m))) for m in results.modes[:3]]
         overall = lateral.status
-        rows.append(Row("heading", ("Checks", f"{lateral.rule_set.upper()} limits · worst storey · overall "
-                                               f"{STATUS_WORDS[overall]}")))
+        rows.append(
+            Row(
+                "heading",
+                ("Checks", f"{lateral.rule_set.upper()} limits · worst storey · overall {STATUS_WORDS[overall]}"),
+            )
+        )
         for summary in check_summaries(lateral):
             v = summary.worst
             where = ", ".join(p for p in (f"storey {v.storey}" if v.storey is not None else "", v.direction or "") if p)
-            detail = f"{fmt_number(v.value)} vs {fmt_number(v.limit)}" + (f" ({where})" if where else "") + f" · {v.clause}"
+            detail = (
+                f"{fmt_number(v.value)} vs {fmt_number(v.limit)}" + (f" ({where})" if where else "") + f" · {v.clause}"
+            )
             tip = f"<b>{summary.name}</b><br>{v.clause}<br>{v.note}<br>{summary.flagged} of {summary.count} flagged"
             rows.append(Row("check", (STATUS_WORDS[v.status], summary.name, detail), colour_of(v.status), tip))
         self.board.set_rows(rows)

@@ -37,7 +37,9 @@ def mode_type(mode: Mode) -> str:
     """``y`` or ``mixed (x 52 %, θ 41 %)``: what the mode does."""
     if mode.kind is not ModeKind.MIXED:
         return MODE_WORDS[mode.kind]
-    parts = [f"{name} {100 * share:.0f} %" for name, share in zip(("x", "y", "θ"), mode.shares, strict=True) if share >= 0.1]
+    parts = [
+        f"{name} {100 * share:.0f} %" for name, share in zip(("x", "y", "θ"), mode.shares, strict=True) if share >= 0.1
+    ]
     return f"mixed ({', '.join(parts)})"
 
 
@@ -66,21 +68,53 @@ def modes_table(results: Results) -> tuple[list[str], list[list[str]]]:
 
 def storeys_table(results: Results) -> tuple[list[str], list[list[str]]]:
     headers = [
-        "Storey", "Level", "h, m", "CM x", "CM y", "CR x", "CR y", "e0x", "e0y", "r_x", "r_y", "l_s",
-        "e0x/r_x", "e0y/r_y", "r_x/l_s", "r_y/l_s", "TR x", "TR y", "drift x %", "drift y %",
+        "Storey",
+        "Level",
+        "h, m",
+        "CM x",
+        "CM y",
+        "CR x",
+        "CR y",
+        "e0x",
+        "e0y",
+        "r_x",
+        "r_y",
+        "l_s",
+        "e0x/r_x",
+        "e0y/r_y",
+        "r_x/l_s",
+        "r_y/l_s",
+        "TR x",
+        "TR y",
+        "drift x %",
+        "drift y %",
     ]
     rows = []
     for s in results.lateral.storeys:
         cr = s.rigidity_centre
         rows.append(
-            [str(s.storey), s.name, fmt_number(s.height, 2), fmt_number(s.mass_centre[0], 2), fmt_number(s.mass_centre[1], 2),
-             fmt_number(cr[0], 2) if cr else "—", fmt_number(cr[1], 2) if cr else "—",
-             fmt_number(s.eccentricity[0], 2), fmt_number(s.eccentricity[1], 2),
-             fmt_number(s.torsional_radius[0], 2), fmt_number(s.torsional_radius[1], 2), fmt_number(s.radius_of_gyration, 2),
-             fmt_number(s.eccentricity_ratio[0]), fmt_number(s.eccentricity_ratio[1]),
-             fmt_number(s.radius_ratio[0]), fmt_number(s.radius_ratio[1]),
-             fmt_number(s.torsion_ratio[0]), fmt_number(s.torsion_ratio[1]),
-             fmt_number(100 * s.drift_ratio[0], 3), fmt_number(100 * s.drift_ratio[1], 3)]
+            [
+                str(s.storey),
+                s.name,
+                fmt_number(s.height, 2),
+                fmt_number(s.mass_centre[0], 2),
+                fmt_number(s.mass_centre[1], 2),
+                fmt_number(cr[0], 2) if cr else "—",
+                fmt_number(cr[1], 2) if cr else "—",
+                fmt_number(s.eccentricity[0], 2),
+                fmt_number(s.eccentricity[1], 2),
+                fmt_number(s.torsional_radius[0], 2),
+                fmt_number(s.torsional_radius[1], 2),
+                fmt_number(s.radius_of_gyration, 2),
+                fmt_number(s.eccentricity_ratio[0]),
+                fmt_number(s.eccentricity_ratio[1]),
+                fmt_number(s.radius_ratio[0]),
+                fmt_number(s.radius_ratio[1]),
+                fmt_number(s.torsion_ratio[0]),
+                fmt_number(s.torsion_ratio[1]),
+                fmt_number(100 * s.drift_ratio[0], 3),
+                fmt_number(100 * s.drift_ratio[1], 3),
+            ]
         )
     return headers, rows
 
@@ -92,11 +126,19 @@ def elements_table(results: Results) -> tuple[list[str], list[list[str]]]:
         for k, storey in enumerate(d.storeys):
             braces = d.brace_force_envelope[k] if d.brace_force_envelope.shape[1] else ()
             rows.append(
-                [d.element, str(storey), fmt_number(float(d.shear_envelope[k]), 1), fmt_number(100 * float(d.share_envelope[k]), 1),
-                 fmt_number(float(max(braces)), 1) if len(braces) else "—",
-                 fmt_number(d.base_moment_envelope, 0) if k == 0 and d.base_moment_envelope else ""]
+                [
+                    d.element,
+                    str(storey),
+                    fmt_number(float(d.shear_envelope[k]), 1),
+                    fmt_number(100 * float(d.share_envelope[k]), 1),
+                    fmt_number(float(max(braces)), 1) if len(braces) else "—",
+                    fmt_number(d.base_moment_envelope, 0) if k == 0 and d.base_moment_envelope else "",
+                ]
             )
     return headers, rows
+
+
+NO_PARENT = QModelIndex()
 
 
 class RowsModel(QAbstractTableModel):
@@ -122,10 +164,10 @@ class RowsModel(QAbstractTableModel):
         self.set_rows(headers, rows)
         return True
 
-    def rowCount(self, parent: QModelIndex | QPersistentModelIndex = QModelIndex()) -> int:
+    def rowCount(self, parent: QModelIndex | QPersistentModelIndex = NO_PARENT) -> int:
         return 0 if parent.isValid() else len(self.rows)
 
-    def columnCount(self, parent: QModelIndex | QPersistentModelIndex = QModelIndex()) -> int:
+    def columnCount(self, parent: QModelIndex | QPersistentModelIndex = NO_PARENT) -> int:
         return 0 if parent.isValid() else len(self.headers)
 
     def data(self, index, role=Qt.ItemDataRole.DisplayRole):
@@ -134,7 +176,9 @@ class RowsModel(QAbstractTableModel):
         if role == Qt.ItemDataRole.TextAlignmentRole:
             text = self.rows[index.row()][index.column()]
             numeric = text[:1].isdigit() or text[:1] in "-—∞"
-            return int((Qt.AlignmentFlag.AlignRight if numeric else Qt.AlignmentFlag.AlignLeft) | Qt.AlignmentFlag.AlignVCenter)
+            return int(
+                (Qt.AlignmentFlag.AlignRight if numeric else Qt.AlignmentFlag.AlignLeft) | Qt.AlignmentFlag.AlignVCenter
+            )
         return None
 
     def headerData(self, section, orientation, role=Qt.ItemDataRole.DisplayRole):

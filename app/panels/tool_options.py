@@ -15,9 +15,7 @@ from app.canvas.view import PlanView
 from app.document import ProjectDocument
 from app.tools.base import Tool
 from app.tools.place import PlaceElementTool, PlacementRange
-from app.units import Quantity
-
-PLAIN = Quantity("", 1.0, 3)
+from app.units import PLAIN
 
 
 class TypedField(QLineEdit):
@@ -34,7 +32,9 @@ class TypedField(QLineEdit):
 
 
 class ToolOptions(QToolBar):
-    def __init__(self, document: ProjectDocument, view: PlanView, placement: PlacementRange, parent: QWidget | None = None):
+    def __init__(
+        self, document: ProjectDocument, view: PlanView, placement: PlacementRange, parent: QWidget | None = None
+    ):
         super().__init__("Tool options", parent)
         self.setObjectName("toolOptions")
         self.document, self.view, self.placement = document, view, placement

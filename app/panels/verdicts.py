@@ -10,7 +10,9 @@ from PySide6.QtGui import QColor
 from app.canvas import style
 from core.lateral_results import STATUS_ORDER, TORSION_RATIO, LateralResults, Status, Verdict
 
-TORSION_CHECKS = frozenset({TORSION_RATIO, "eccentricity over torsional radius", "torsional radius over radius of gyration"})
+TORSION_CHECKS = frozenset(
+    {TORSION_RATIO, "eccentricity over torsional radius", "torsional radius over radius of gyration"}
+)
 """Verdicts that say whether a storey twists too much, under either rule set."""
 DRIFT_CHECKS = frozenset({"storey drift ratio"})
 
@@ -22,13 +24,25 @@ def colour_of(status: Status | None) -> QColor:
     return STATUS_COLOURS.get(status, style.UNKNOWN) if status is not None else style.UNKNOWN
 
 
+def passes_below(verdicts: list[Verdict]) -> bool:
+    """Whether these verdicts of one check pass at values below their limit (a drift) rather than
+    above it (a radius ratio), read from the verdicts themselves."""
+    passing = [v for v in verdicts if v.status is Status.PASS]
+    if passing:
+        return passing[0].value <= passing[0].limit
+    return verdicts[0].value > verdicts[0].limit
+
+
 def worst(verdicts: Iterable[Verdict]) -> Verdict | None:
-    """The first verdict with the worst status."""
-    chosen: Verdict | None = None
-    for v in verdicts:
-        if chosen is None or STATUS_ORDER[v.status] > STATUS_ORDER[chosen.status]:
-            chosen = v
-    return chosen
+    """The verdict with the worst status and, among those, the value furthest toward failing."""
+    verdicts = list(verdicts)
+    if not verdicts:
+        return None
+    status = max((v.status for v in verdicts), key=STATUS_ORDER.__getitem__)
+    candidates = [v for v in verdicts if v.status is status]
+    if passes_below(verdicts):
+        return max(candidates, key=lambda v: v.value)
+    return min(candidates, key=lambda v: v.value)
 
 
 @dataclass(frozen=True)

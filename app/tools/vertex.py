@@ -54,13 +54,21 @@ class VertexTool(Tool):
     def activate(self) -> None:
         super().activate()
         self._handles = Handles(self.view.scene())
-        for signal in (self.document.project_changed, self.document.preview_changed, self.document.current_level_changed):
+        for signal in (
+            self.document.project_changed,
+            self.document.preview_changed,
+            self.document.current_level_changed,
+        ):
             signal.connect(self._refresh)
         self._refresh()
 
     def deactivate(self) -> None:
         super().deactivate()
-        for signal in (self.document.project_changed, self.document.preview_changed, self.document.current_level_changed):
+        for signal in (
+            self.document.project_changed,
+            self.document.preview_changed,
+            self.document.current_level_changed,
+        ):
             signal.disconnect(self._refresh)
         if self._handles is not None:
             self._handles.remove()
