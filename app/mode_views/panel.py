@@ -142,7 +142,7 @@ class ModeViewsPanel(QWidget):
             controls.addSpacing(8)
         controls.addStretch(1)
 
-        self.chart_tabs = QTabWidget()
+        self.chart_tabs = QTabWidget(self)
         self.chart_tabs.setObjectName("modeChartTabs")
         self.chart_tabs.setDocumentMode(True)
         self.views = QWidget()
