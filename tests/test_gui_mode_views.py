@@ -14,7 +14,7 @@ from pathlib import Path
 
 import numpy as np
 import pytest
-from PySide6.QtCore import QPoint, QPointF, Qt, QTimer
+from PySide6.QtCore import QEvent, QPoint, QPointF, Qt, QTimer
 from PySide6.QtGui import QMouseEvent
 from PySide6.QtWidgets import QApplication
 
@@ -28,17 +28,33 @@ SAMPLES = ("office_5_storey_braced", "residential_8_storey_walls", "pavilion_1_s
 SCREENSHOTS = Path(__file__).parent / "screenshots"
 
 
-def _open(qtbot, sample: str) -> tuple[ProjectDocument, ModeViewsPanel]:
-    document = ProjectDocument()
-    document.open(sample_path(sample))
-    document.flush_analysis()
-    assert document.results is not None, document.error
-    panel = ModeViewsPanel(document)
-    qtbot.addWidget(panel)
-    panel.resize(1500, 900)
-    panel.show()
-    qtbot.waitExposed(panel)
-    return document, panel
+@pytest.fixture
+def open_sample(qtbot):
+    """Opens a sample in a document and a shown panel, and keeps both alive until the panel has
+    been closed and deleted through the event loop. (Letting the last Python reference drop
+    instead deletes the widget tree from Python in an order that pyqtgraph items do not survive:
+    "pure virtual method called".)"""
+    opened: list[tuple[ProjectDocument, ModeViewsPanel]] = []
+
+    def open_(sample: str) -> tuple[ProjectDocument, ModeViewsPanel]:
+        document = ProjectDocument()
+        document.open(sample_path(sample))
+        document.flush_analysis()
+        assert document.results is not None, document.error
+        panel = ModeViewsPanel(document)
+        panel.resize(1500, 900)
+        panel.show()
+        qtbot.waitExposed(panel)
+        opened.append((document, panel))
+        return document, panel
+
+    yield open_
+    for _, panel in opened:
+        panel.close()
+        panel.deleteLater()
+    QApplication.sendPostedEvents(None, QEvent.Type.DeferredDelete)
+    QApplication.processEvents()
+    opened.clear()
 
 
 def _curve(item) -> np.ndarray:
@@ -55,8 +71,8 @@ def _move_first_element(document: ProjectDocument, dx: float) -> None:
     document.apply(dataclasses.replace(project, elements=(moved, *project.elements[1:])), "move element")
 
 
-def test_selecting_a_mode_updates_every_view(qtbot):
-    document, panel = _open(qtbot, "office_5_storey_braced")
+def test_selecting_a_mode_updates_every_view(qtbot, open_sample):
+    document, panel = open_sample("office_5_storey_braced")
     panel.clock.set_phase(math.pi / 2)
     first_floor = _curve(panel.plan._floor)
     first_3d = _curve(panel.building._floors)
@@ -80,8 +96,8 @@ def test_selecting_a_mode_updates_every_view(qtbot):
     assert x[0] == 0.0 and len(x) == len(results.floors) + 1
 
 
-def test_choosing_a_mode_in_the_panel_goes_through_the_document(qtbot):
-    document, panel = _open(qtbot, "residential_8_storey_walls")
+def test_choosing_a_mode_in_the_panel_goes_through_the_document(qtbot, open_sample):
+    document, panel = open_sample("residential_8_storey_walls")
     heard = []
     document.mode_selected.connect(heard.append)
     panel.mode_box.setCurrentIndex(1)
@@ -94,8 +110,8 @@ def test_choosing_a_mode_in_the_panel_goes_through_the_document(qtbot):
     assert heard[-1] == 3 and panel.masses.selected == 3
 
 
-def test_editing_the_plan_while_animating_keeps_it_running(qtbot):
-    document, panel = _open(qtbot, "residential_8_storey_walls")
+def test_editing_the_plan_while_animating_keeps_it_running(qtbot, open_sample):
+    document, panel = open_sample("residential_8_storey_walls")
     clocks = panel.findChildren(ModeClock)
     timers = [t for clock in clocks for t in clock.findChildren(QTimer)]
     assert len(clocks) == 1 and len(timers) == 1
@@ -125,8 +141,8 @@ def test_editing_the_plan_while_animating_keeps_it_running(qtbot):
     assert not np.any(np.all(np.isclose(lines, original.start), axis=1))
 
 
-def test_the_clock_stops_while_hidden_and_resumes(qtbot):
-    _, panel = _open(qtbot, "pavilion_1_storey")
+def test_the_clock_stops_while_hidden_and_resumes(qtbot, open_sample):
+    _, panel = open_sample("pavilion_1_storey")
     panel.clock.play()
     assert panel.clock.running
     panel.hide()
@@ -139,8 +155,8 @@ def test_the_clock_stops_while_hidden_and_resumes(qtbot):
     qtbot.waitUntil(lambda: panel.plan.frames_drawn > frames, timeout=3000)
 
 
-def test_play_pause_step_pace_and_amplitude(qtbot):
-    _, panel = _open(qtbot, "office_5_storey_braced")
+def test_play_pause_step_pace_and_amplitude(qtbot, open_sample):
+    _, panel = open_sample("office_5_storey_braced")
     panel.play_action.trigger()
     assert panel.clock.playing and panel.play_action.text() == "Pause"
     panel.play_action.trigger()
@@ -165,8 +181,8 @@ def test_play_pause_step_pace_and_amplitude(qtbot):
     assert largest == pytest.approx(peak, rel=0.03)
 
 
-def test_turning_the_3d_view_with_the_mouse(qtbot):
-    _, panel = _open(qtbot, "office_5_storey_braced")
+def test_turning_the_3d_view_with_the_mouse(qtbot, open_sample):
+    _, panel = open_sample("office_5_storey_braced")
     view = panel.building
     before = view.view
     viewport = view.viewport()
@@ -186,8 +202,8 @@ def test_turning_the_3d_view_with_the_mouse(qtbot):
     assert f"{math.degrees(view.view.azimuth):.0f}°, " in view.getPlotItem().titleLabel.text
 
 
-def test_an_unstable_layout_shows_the_diagnostic(qtbot):
-    document, panel = _open(qtbot, "pavilion_1_storey")
+def test_an_unstable_layout_shows_the_diagnostic(qtbot, open_sample):
+    document, panel = open_sample("pavilion_1_storey")
     panel.clock.play()
     document.apply(dataclasses.replace(document.project, elements=()), "delete all")
     document.flush_analysis()
@@ -201,9 +217,9 @@ def test_an_unstable_layout_shows_the_diagnostic(qtbot):
 
 
 @pytest.mark.parametrize("sample", SAMPLES)
-def test_screenshots_of_each_view(qtbot, sample):
+def test_screenshots_of_each_view(qtbot, sample, open_sample):
     """Pictures for a person to look at; the assertions only check that something was drawn."""
-    document, panel = _open(qtbot, sample)
+    document, panel = open_sample(sample)
     SCREENSHOTS.mkdir(exist_ok=True)
     results = document.results
     first_three = results.modes[:3]
@@ -223,8 +239,8 @@ def test_screenshots_of_each_view(qtbot, sample):
             image.save(str(SCREENSHOTS / f"modes_{sample}_mode{number}_{name}.png"))
 
 
-def test_the_plan_starts_on_the_roof_and_follows_the_edited_level(qtbot):
-    document, panel = _open(qtbot, "office_5_storey_braced")
+def test_the_plan_starts_on_the_roof_and_follows_the_edited_level(qtbot, open_sample):
+    document, panel = open_sample("office_5_storey_braced")
     roof = len(document.results.floors) - 1
     assert panel.floor_index == roof and panel.floor_box.currentIndex() == roof
     document.set_current_level(2)

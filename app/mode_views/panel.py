@@ -8,10 +8,10 @@ diagnostic instead of the motion. The one animation clock stops while the panel 
 
 from __future__ import annotations
 
-from typing import Any
+from typing import TYPE_CHECKING
 
 from PySide6.QtCore import Qt
-from PySide6.QtGui import QAction, QHideEvent, QResizeEvent, QShowEvent
+from PySide6.QtGui import QAction, QColor, QHideEvent, QResizeEvent, QShowEvent
 from PySide6.QtWidgets import (
     QComboBox,
     QGridLayout,
@@ -27,14 +27,18 @@ from PySide6.QtWidgets import (
 )
 
 from app.canvas.style import DIAGNOSTIC, KIND_COLOURS, KIND_LABELS, MASS_CENTRE, RIGIDITY_CENTRE
+from app.document import ProjectDocument
 from app.mode_views.building_view import BuildingMotionView
 from app.mode_views.charts import MassRatioChart, PeriodChart, ShapeChart
 from app.mode_views.clock import DEFAULT_CYCLE_SECONDS, ModeClock
-from app.mode_views.palette import mode_caption, mode_label
+from app.mode_views.palette import UNDEFORMED, mode_caption, mode_label
 from app.mode_views.plan_view import PlanMotionView
 from core.mode_frames import BuildingGeometry, building_geometry, peak_scale
-from core.model import Point, Project
+from core.model import Point
 from core.results import Results
+
+if TYPE_CHECKING:
+    from app.main_window import MainWindow
 
 DEFAULT_AMPLITUDE_PERCENT = 8
 """Peak drawn motion as a share of the plan size (mode shapes have no absolute size)."""
@@ -53,14 +57,14 @@ def rigidity_centres(results: Results) -> list[Point | None]:
 
 
 def _key_html() -> str:
-    def swatch(colour: Any, text: str) -> str:
+    def swatch(colour: QColor, text: str) -> str:
         return f"<span style='color:{colour.name()}'>&#9632;</span>&nbsp;{text}"
 
     parts = [
         f"<span style='color:{MASS_CENTRE.name()}'>&#8853;</span>&nbsp;centre of mass",
         f"<span style='color:{RIGIDITY_CENTRE.name()}'>&#9671;</span>&nbsp;centre of rigidity",
         *(swatch(KIND_COLOURS[kind], KIND_LABELS[kind].lower()) for kind in KIND_COLOURS),
-        "<span style='color:#8a8578'>&#9633;</span>&nbsp;at rest",
+        f"<span style='color:{UNDEFORMED.name()}'>&#9633;</span>&nbsp;at rest",
     ]
     return " &nbsp; ".join(parts)
 
@@ -68,7 +72,7 @@ def _key_html() -> str:
 class ModeViewsPanel(QWidget):
     """Animated mode shapes (plan and 3D) and the period, mass and shape charts of one document."""
 
-    def __init__(self, document: Any, parent: QWidget | None = None) -> None:
+    def __init__(self, document: ProjectDocument, parent: QWidget | None = None) -> None:
         super().__init__(parent)
         self.setObjectName("modeViewsPanel")
         self.document = document
@@ -83,7 +87,6 @@ class ModeViewsPanel(QWidget):
         """0-based floor emphasised in the plan: the roof until the editor's level changes."""
         self._geometry: BuildingGeometry | None = None
         self._results: Results | None = None
-        self._project: Project | None = None
         self._shown = False
         """Between showEvent and hideEvent."""
         self._on_screen = True
@@ -250,7 +253,7 @@ class ModeViewsPanel(QWidget):
         self._stale = False
         results, project = self.document.results, self.document.analysed_project
         if results is None or project is None or not results.modes:
-            self._results = self._project = self._geometry = None
+            self._results = self._geometry = None
             error = self.document.error
             message = error.message if error is not None else "The analysis has not run yet."
             self.diagnostic.setText(f"No mode shapes to show.\n\n{message}")
@@ -261,7 +264,7 @@ class ModeViewsPanel(QWidget):
                 chart.clear_results()
             self._update_ticking()
             return
-        self._results, self._project = results, project
+        self._results = results
         self._geometry = building_geometry(project, results.floors, rigidity_centres(results))
         self.mode_number = min(max(1, self.mode_number), len(results.modes))
         roof = len(results.floors) - 1
@@ -412,7 +415,7 @@ class ModeViewsPanel(QWidget):
         self._visibility_changed()
 
 
-def install(window: Any) -> ModeViewsPanel:
+def install(window: MainWindow) -> ModeViewsPanel:
     """Add the mode-shape panel to the main window, following ``window.document``."""
     panel = ModeViewsPanel(window.document)
     dock = window.add_panel(panel, "Mode shapes", "modeShapesPanel", Qt.DockWidgetArea.BottomDockWidgetArea)
