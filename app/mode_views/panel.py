@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING
 
-from PySide6.QtCore import Qt
+from PySide6.QtCore import Qt, QTimer
 from PySide6.QtGui import QAction, QColor, QHideEvent, QResizeEvent, QShowEvent
 from PySide6.QtWidgets import (
     QComboBox,
@@ -46,6 +46,8 @@ PACE_STEPS_PER_SECOND = 10
 WIDE_RATIO = 2.2
 """Views go in one row when the panel's view area is wider than this times its height."""
 CHROME_HEIGHT = 60
+DRAG_REFRESH_MS = 120
+"""While a drag is under way the views rebuild at most this often; the animation runs on between."""
 """Height of the control row and the footer, px (roughly)."""
 CAUTION = ("Concept-stage estimate (rigid floors, elements stiff in their own plane only): verify with a full "
            "analysis, follow the local code, defer to licensed practice.")
@@ -93,6 +95,10 @@ class ModeViewsPanel(QWidget):
         """False while the dock holding the panel has its tab behind another."""
         self._stale = True
         """The document changed while the panel was off screen."""
+        self._drag_timer = QTimer(self)
+        self._drag_timer.setSingleShot(True)
+        self._drag_timer.setInterval(DRAG_REFRESH_MS)
+        self._drag_timer.timeout.connect(self.refresh)
         self._build_controls()
         self._build_layout()
         self._connect()
@@ -220,7 +226,7 @@ class ModeViewsPanel(QWidget):
 
     def _connect(self) -> None:
         document = self.document
-        document.results_changed.connect(self.refresh)
+        document.results_changed.connect(self._results_changed)
         document.mode_selected.connect(self.select_mode)
         document.current_level_changed.connect(self._follow_level)
         self.clock.phase_changed.connect(self._draw_frame)
@@ -241,11 +247,20 @@ class ModeViewsPanel(QWidget):
     def on_screen(self) -> bool:
         return self._shown and self._on_screen
 
+    def _results_changed(self) -> None:
+        """Follow every committed change at once, and a drag's previews at most every DRAG_REFRESH_MS."""
+        if self.document.previewing and self.on_screen:
+            if not self._drag_timer.isActive():
+                self._drag_timer.start()
+            return
+        self.refresh()
+
     def refresh(self) -> None:
         """Rebuild from the document's latest results; the animation carries on from its phase.
 
         Off screen the work waits (``_stale``) until the panel is shown again, so a drag in the
         editor pays nothing for a panel behind another tab."""
+        self._drag_timer.stop()
         if not self.on_screen:
             self._stale = True
             self._update_ticking()
