@@ -111,12 +111,12 @@ def draw_overlay(painter: QPainter, data: OverlayData, to_device) -> None:
 
 
 def _mass_symbol(painter: QPainter, c: QPointF) -> None:
+    """A ring with a cross (⊕), the same mark as the mode views, the legend and the sheet."""
     painter.setBrush(QColor(255, 255, 255, 230))
     painter.setPen(style.pen(style.MASS_CENTRE, 2.0))
     painter.drawEllipse(c, 8.0, 8.0)
-    painter.setPen(Qt.PenStyle.NoPen)
-    painter.setBrush(style.MASS_CENTRE)
-    painter.drawEllipse(c, 4.0, 4.0)
+    painter.drawLine(QLineF(c.x() - 8.0, c.y(), c.x() + 8.0, c.y()))
+    painter.drawLine(QLineF(c.x(), c.y() - 8.0, c.x(), c.y() + 8.0))
 
 
 def _rigidity_symbol(painter: QPainter, c: QPointF) -> None:
