@@ -29,7 +29,7 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from app import commands
+from app import commands, safety_net
 from app.canvas.scene import PlanScene
 from app.canvas.view import PlanView
 from app.document import ProjectDocument
@@ -633,6 +633,7 @@ def run(path: Path | None = None) -> int:
     app.setOrganizationName("Poise")
     app.setApplicationName("Poise")
     window = MainWindow()
+    safety_net.install(window, window.document)
     if path is not None:
         window.open_file(Path(path), confirm=False)
     else:

@@ -1,0 +1,30 @@
+"""An unexpected error inside the editor saves a recovery copy and says so; the window stays."""
+
+from __future__ import annotations
+
+import sys
+
+from PySide6.QtWidgets import QMessageBox
+
+from app import safety_net
+from core.fileio import load_project, save_project
+from tests.test_gui_support import make_window
+
+
+def test_an_unexpected_error_saves_the_work_and_keeps_the_window(qtbot, tmp_path, monkeypatch):
+    window = make_window(qtbot, tmp_path)
+    path = tmp_path / "office.poise"
+    save_project(window.document.project, path)
+    window.open_file(path, confirm=False)
+    shown = []
+    monkeypatch.setattr(QMessageBox, "critical", lambda parent, title, text: shown.append(text))
+    monkeypatch.setattr(sys, "excepthook", sys.excepthook)  # restored after the test
+    safety_net.install(window, window.document)
+    try:
+        raise RuntimeError("a slot went wrong")
+    except RuntimeError:
+        sys.excepthook(*sys.exc_info())
+    recovered = tmp_path / "office.recovered.poise"
+    assert load_project(recovered) == window.document.project
+    assert len(shown) == 1 and "a slot went wrong" in shown[0] and str(recovered) in shown[0]
+    assert window.isVisible()
