@@ -108,9 +108,9 @@ def test_cli_level_option_draws_that_level(tmp_path, qapp, analysed):
 @pytest.mark.parametrize(
     ("argv", "words"),
     [
-        (["sheet", "missing.poise", "-o", "x.pdf"], "missing.poise"),
-        (["sheet", "{sample}", "-o", "x.pdf", "--level", "0"], "level 0 does not exist"),
-        (["sheet", "{sample}", "-o", "x.pdf", "--level", "99"], "level 99 does not exist"),
+        (["sheet", "missing.poise", "-o", "{tmp}/x.pdf"], "missing.poise"),
+        (["sheet", "{sample}", "-o", "{tmp}/x.pdf", "--level", "0"], "level 0 does not exist"),
+        (["sheet", "{sample}", "-o", "{tmp}/x.pdf", "--level", "99"], "level 99 does not exist"),
         (["sheet", "{sample}", "-o", "{tmp}/no/such/folder/x.pdf"], "No such file"),
     ],
 )
@@ -120,6 +120,7 @@ def test_cli_bad_input_exits_2_with_one_line(argv, words, tmp_path, qapp, capsys
     err = capsys.readouterr().err.strip()
     assert words in err
     assert "\n" not in err and "Traceback" not in err
+    assert not (tmp_path / "x.pdf").exists()
 
 
 def test_cli_refuses_a_broken_project_file(tmp_path, qapp, capsys):

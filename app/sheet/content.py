@@ -307,6 +307,13 @@ def _rule_set_name(rule_set: str) -> str:
     return {RuleSet.EN1998.value: "EN 1998-1", RuleSet.ASCE7.value: "ASCE 7"}.get(rule_set, rule_set)
 
 
+def check_level(project: Project, level: int) -> None:
+    """Raise ValueError unless ``level`` (1-based) is one of the project's levels."""
+    count = len(project.levels)
+    if not 1 <= level <= count:
+        raise ValueError(f"level {level} does not exist: the project has levels 1 to {count}")
+
+
 def sheet_content(
     project: Project,
     results: Results,
@@ -319,12 +326,10 @@ def sheet_content(
 
     Raises ValueError for a level the project does not have.
     """
-    count = len(results.floors)
     if level is None:
         level, reason = worst_torsion_level(results)
     else:
-        if not 1 <= level <= count:
-            raise ValueError(f"level {level} does not exist: the project has levels 1 to {count}")
+        check_level(project, level)
         reason = "chosen level"
     names = {f.level: f.name for f in results.floors}
     columns, rows, building, clauses = checks_table(results.lateral, names)

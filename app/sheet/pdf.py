@@ -7,7 +7,7 @@ from pathlib import Path
 from PySide6.QtCore import QMarginsF, QRectF
 from PySide6.QtGui import QGuiApplication, QPageLayout, QPageSize, QPainter, QPdfWriter
 
-from app.sheet.content import SheetContent
+from app.sheet.content import SheetContent, check_level
 from app.sheet.render import render_sheet
 from core.model import Project
 from core.results import Results
@@ -48,6 +48,8 @@ def export_sheet_pdf(
         raise RuntimeError("export_sheet_pdf needs a QGuiApplication (fonts are laid out by Qt)")
     path = Path(path)
     layout = page_layout(paper, landscape)
+    if level is not None:
+        check_level(project, level)  # before the file is touched, so a bad level leaves it as it was
     with path.open("wb"):
         pass  # fail early, with the system's reason, if the file cannot be written
     writer = QPdfWriter(str(path))
