@@ -30,7 +30,7 @@ def add_sheet_command(subparsers: argparse._SubParsersAction) -> argparse.Argume
                         help="level drawn in plan, 1 = first floor (default: the worst torsion ratio)")
     parser.add_argument("--paper", choices=("a4", "letter"), default="a4", help="paper size (default a4)")
     parser.add_argument("--landscape", action="store_true", help="landscape page (default portrait)")
-    parser.add_argument("--revision", default="", help="revision shown in the title block")
+    parser.add_argument("--revision", default="", help="revision for this print (default: the project's revision)")
     parser.add_argument("--date", help="date shown in the title block (default today, YYYY-MM-DD)")
     parser.set_defaults(command="sheet")
     return parser

@@ -67,6 +67,7 @@ def project_to_dict(project: Project) -> dict[str, Any]:
             "job_number": project.job_number,
             "engineer": project.engineer,
             "notes": project.notes,
+            "revision": project.revision,
         },
         "settings": _encode(project.settings),
         "levels": [_encode(level) for level in project.levels],
@@ -202,7 +203,7 @@ def project_from_dict(document: Any) -> Project:
     header = document.get("project", {})
     if not isinstance(header, dict):
         raise ModelError("project", "expected an object")
-    unknown = sorted(set(header) - {"name", "job_number", "engineer", "notes"})
+    unknown = sorted(set(header) - {"name", "job_number", "engineer", "notes", "revision"})
     if unknown:
         raise ModelError(f"project.{unknown[0]}", "unknown field")
     texts = {k: _decode(header[k], str, f"project.{k}") for k in header}

@@ -433,6 +433,8 @@ class Project:
     job_number: str = ""
     engineer: str = ""
     notes: str = ""
+    revision: str = ""
+    """Revision of the layout, shown in the plan sheet's title block (e.g. P1, A)."""
     settings: Settings = field(default_factory=Settings)
     levels: tuple[Level, ...] = ()
     elements: tuple[Element, ...] = ()

@@ -35,7 +35,8 @@ def full_project() -> Project:
         Element("M1", (0.0, 12.0), (24.0, 12.0), 0, 1, MomentFrame(bays=3)),
         Element("S1", (24.0, 0.0), (24.0, 12.0), 1, 2, Spring((5.0e4,))),
     )
-    return Project("Round trip", "J-001", "A. Engineer", "notes\nwith a second line", levels=levels, elements=elements)
+    return Project("Round trip", "J-001", "A. Engineer", "notes\nwith a second line", levels=levels, elements=elements,
+                   revision="P2")
 
 
 def test_save_load_round_trip(tmp_path):

@@ -3,6 +3,7 @@ layout staying inside its margins, the level choice, the sheet's content, printi
 
 from __future__ import annotations
 
+import dataclasses
 import math
 import shutil
 import subprocess
@@ -189,11 +190,14 @@ def test_assumptions_name_the_spectrum_and_its_parameters(analysed):
 
 def test_title_block_fields_reach_the_page(tmp_path, qapp, analysed):
     project, results = analysed["pavilion_1_storey"]
+    project = dataclasses.replace(project, revision="P4")
     out = tmp_path / "sheet.pdf"
-    export_sheet_pdf(project, results, out, file_name="pavilion.poise", revision="C3", date="2031-04-05")
+    export_sheet_pdf(project, results, out, file_name="pavilion.poise", date="2031-04-05")
     text = pdf_text(out)
-    for word in (project.name, project.job_number, project.engineer, "pavilion.poise", "C3", "2031-04-05"):
+    for word in (project.name, project.job_number, project.engineer, "pavilion.poise", "P4", "2031-04-05"):
         assert word in text
+    export_sheet_pdf(project, results, out, file_name="pavilion.poise", revision="C3")  # an override for one print
+    assert "C3" in pdf_text(out) and "P4" not in pdf_text(out)
 
 
 def _render_page_image(project: Project, results, paper: str, landscape: bool, dpi: int = 96) -> tuple:
@@ -285,7 +289,7 @@ def test_install_adds_the_actions_to_file_and_view(window):
 
 def test_print_path_paints_one_page(window, tmp_path):
     """The print dialog's printer, here a PDF printer, gets the same one-page sheet."""
-    options = SheetOptions(paper="letter", landscape=True, level=2, revision="B")
+    options = SheetOptions(paper="letter", landscape=True, level=2)
     printer = window.exchange.printer(options)
     printer.setOutputFormat(QPrinter.OutputFormat.PdfFormat)
     out = tmp_path / "printed.pdf"

@@ -139,7 +139,7 @@ class ExchangeActions(QObject):
     def export_sheet_to(self, path: str | Path, options: SheetOptions) -> SheetContent:
         project, results = self.analysed()
         return export_sheet_pdf(project, results, path, options.paper, options.landscape, options.level,
-                                file_name=self._file_name(), revision=options.revision)
+                                file_name=self._file_name())
 
     def printer(self, options: SheetOptions) -> QPrinter:
         printer = QPrinter(QPrinter.PrinterMode.HighResolution)
@@ -156,7 +156,7 @@ class ExchangeActions(QObject):
         try:
             page = printer.pageLayout().paintRectPixels(printer.resolution())
             return render_sheet(painter, QRectF(0, 0, page.width(), page.height()), project, results,
-                                options.level, file_name=self._file_name(), revision=options.revision)
+                                options.level, file_name=self._file_name())
         finally:
             painter.end()
 

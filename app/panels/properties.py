@@ -222,6 +222,7 @@ def project_rows(project: Project) -> list[Row]:
         Row("Project", "name", "text"),
         Row("Job number", "job_number", "text"),
         Row("Engineer", "engineer", "text"),
+        Row("Revision", "revision", "text"),
         Row(
             "Judge by",
             "settings.rule_set",

@@ -339,7 +339,7 @@ def sheet_content(
             job_number=project.job_number,
             engineer=project.engineer,
             date=date if date is not None else _dt.date.today().isoformat(),
-            revision=revision,
+            revision=revision or project.revision,
             file_name=file_name,
         ),
         level=level,

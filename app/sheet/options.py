@@ -1,4 +1,4 @@
-"""The sheet's settings (paper, orientation, level, revision) and the small dialog that sets them.
+"""The sheet's settings (paper, orientation, level) and the small dialog that sets them.
 
 They are remembered between sessions in QSettings under ``sheet/``; the level is not, because it
 belongs to one project (None: the level with the worst torsion ratio).
@@ -9,7 +9,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from PySide6.QtCore import QSettings
-from PySide6.QtWidgets import QComboBox, QDialog, QDialogButtonBox, QFormLayout, QLineEdit, QWidget
+from PySide6.QtWidgets import QComboBox, QDialog, QDialogButtonBox, QFormLayout, QWidget
 
 from app.sheet.pdf import PAPER_SIZES
 from core.model import Project
@@ -23,7 +23,6 @@ class SheetOptions:
     landscape: bool = False
     level: int | None = None
     """1-based; None picks the level with the worst torsion ratio."""
-    revision: str = ""
 
     @staticmethod
     def load(settings: QSettings) -> SheetOptions:
@@ -31,17 +30,15 @@ class SheetOptions:
         return SheetOptions(
             paper=paper if paper in PAPER_SIZES else "a4",
             landscape=settings.value("sheet/landscape", False, type=bool),
-            revision=str(settings.value("sheet/revision", "")),
         )
 
     def save(self, settings: QSettings) -> None:
         settings.setValue("sheet/paper", self.paper)
         settings.setValue("sheet/landscape", self.landscape)
-        settings.setValue("sheet/revision", self.revision)
 
 
 class SheetOptionsDialog(QDialog):
-    """Paper, orientation, level drawn and revision, asked before a PDF export."""
+    """Paper, orientation and level drawn, asked before a PDF export (the revision is the project's)."""
 
     def __init__(self, options: SheetOptions, project: Project, parent: QWidget | None = None) -> None:
         super().__init__(parent)
@@ -59,13 +56,10 @@ class SheetOptionsDialog(QDialog):
         for number, level in enumerate(project.levels, start=1):
             self.level.addItem(f"{number} · {level.name}", number)
         self.level.setCurrentIndex(max(0, self.level.findData(options.level)) if options.level else 0)
-        self.revision = QLineEdit(options.revision)
-        self.revision.setPlaceholderText("e.g. A, P1, 02")
         form = QFormLayout(self)
         form.addRow("Paper", self.paper)
         form.addRow("Orientation", self.orientation)
         form.addRow("Level in plan", self.level)
-        form.addRow("Revision", self.revision)
         buttons = QDialogButtonBox(QDialogButtonBox.StandardButton.Ok | QDialogButtonBox.StandardButton.Cancel)
         buttons.accepted.connect(self.accept)
         buttons.rejected.connect(self.reject)
@@ -76,5 +70,4 @@ class SheetOptionsDialog(QDialog):
             paper=self.paper.currentData(),
             landscape=bool(self.orientation.currentData()),
             level=self.level.currentData(),
-            revision=self.revision.text().strip(),
         )
