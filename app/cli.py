@@ -16,7 +16,6 @@ from pathlib import Path
 from core.errors import AnalysisError, ModelError
 
 BAD_INPUT = 2
-COMMANDS = ("analyse",)
 
 
 def _analyse_parser() -> argparse.ArgumentParser:

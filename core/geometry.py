@@ -9,7 +9,6 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 import numpy as np
-from shapely.geometry import Polygon
 
 from core.model import Point, Ring
 
@@ -65,8 +64,3 @@ def bounding_size(outline: Ring) -> tuple[float, float]:
     """Plan dimensions (L_x, L_y) of the outline's bounding box, m."""
     p = np.asarray(outline, dtype=float)
     return float(np.ptp(p[:, 0])), float(np.ptp(p[:, 1]))
-
-
-def floor_polygon(outline: Ring, openings: tuple[Ring, ...] = ()) -> Polygon:
-    """The floor as a shapely polygon with holes."""
-    return Polygon(outline, holes=list(openings))

@@ -133,10 +133,6 @@ class CaseResult:
     corner_drifts: FloatArray
     """(N,) largest |storey drift along the load direction| at any outline vertex, m."""
 
-    @property
-    def max_torsion_ratio(self) -> float:
-        return float(self.torsion_ratio.max()) if self.torsion_ratio.size else 1.0
-
 
 @dataclass(frozen=True)
 class StoreyLateral:
@@ -265,12 +261,6 @@ class LateralResults:
         values = [s.torsion_ratio[DIRECTIONS.index(direction)] for s in self.storeys]
         return max(values, default=1.0)
 
-    def worst_drift_ratio(self, direction: Direction, at_corner: bool = True) -> float:
-        """The largest design drift ratio of any storey in ``direction``."""
-        i = DIRECTIONS.index(direction)
-        values = [(s.corner_drift_ratio if at_corner else s.drift_ratio)[i] for s in self.storeys]
-        return max(values, default=0.0)
-
     def storey(self, storey: int) -> StoreyLateral:
         """The figures of storey ``storey`` (1-based)."""
         return self.storeys[storey - 1]
@@ -286,9 +276,6 @@ class LateralResults:
             if demand.element == element_id:
                 return demand
         raise KeyError(element_id)
-
-    def verdicts_with(self, status: Status) -> tuple[Verdict, ...]:
-        return tuple(v for v in self.verdicts if v.status is status)
 
     @property
     def status(self) -> Status:
