@@ -278,15 +278,7 @@ class PlanView(QGraphicsView):
             return None
         if not document.shown_project.levels:
             return "No floor yet: draw the outline of level 1 (Outline or Rectangle tool)."
-        where = ""
-        if error.levels:
-            names = [
-                document.shown_project.levels[i - 1].name
-                for i in error.levels
-                if 1 <= i <= len(document.shown_project.levels)
-            ]
-            where = f" [{', '.join(names)}]"
-        return f"Cannot analyse this layout{where}: {error.message}"
+        return f"Cannot analyse this layout: {error.message}"  # the message names the levels and motion
 
     def _draw_banner(self, painter: QPainter, text: str) -> None:
         painter.setFont(BANNER_FONT)
