@@ -73,11 +73,16 @@ class ProjectDocument(QObject):
         return self._preview is not None
 
     def apply(self, project: Project, text: str, merge_key: Any = None) -> bool:
-        """Make ``project`` current as one undo step; False when nothing changed."""
-        self.end_preview()
+        """Make ``project`` current as one undo step; False when nothing changed.
+
+        A drag's preview ends here without analysing the committed project it replaces."""
         if project == self._project:
+            self.end_preview()
             return False
+        was_previewing = self._preview is not None
         self.undo_stack.push(ReplaceProject(self, self._project, project, text, merge_key))
+        if was_previewing:
+            self.preview_changed.emit()
         return True
 
     def preview(self, project: Project) -> None:
