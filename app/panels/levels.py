@@ -21,6 +21,8 @@ from app.document import ProjectDocument
 from app.panels.fields import FieldForm, Row
 from app.panels.verdicts import colour_of, storey_state
 from app.units import AREA_LOAD, LENGTH
+from core.assembly import floor_masses
+from core.results import FloorMass
 
 GROUND_PIXELS = 22
 TOP_PIXELS = 16
@@ -218,16 +220,10 @@ class LevelStrip(QWidget):
 
 
 def level_rows(document: ProjectDocument, number: int) -> list[Row]:
-    """Editable fields of level ``number`` and read-only figures from the results."""
+    """Editable fields of level ``number`` and its figures (known even while the layout is unstable)."""
 
-    def result(figure):
-        def read(_level):
-            results = document.results
-            if results is None or number > len(results.floors):
-                return "—"
-            return figure(results, number)
-
-        return read
+    def floor() -> FloorMass:
+        return floor_masses(document.shown_project)[number - 1]
 
     return [
         Row("Name", "name", "text"),
@@ -240,8 +236,8 @@ def level_rows(document: ProjectDocument, number: int) -> list[Row]:
             tip="Dead load plus the combined share of imposed load, per floor area.",
         ),
         Row("Floor at", kind="readonly", getter=lambda _lv: f"+{document.shown_project.elevations[number - 1]:.2f} m"),
-        Row("Floor area", kind="readonly", getter=result(lambda r, n: f"{r.floors[n - 1].area:.1f} m²")),
-        Row("Mass", kind="readonly", getter=result(lambda r, n: f"{r.floors[n - 1].mass:.1f} t")),
+        Row("Floor area", kind="readonly", getter=lambda _lv: f"{floor().area:.1f} m²"),
+        Row("Mass", kind="readonly", getter=lambda _lv: f"{floor().mass:.1f} t"),
         Row("Point masses", kind="readonly", getter=lambda lv: str(len(lv.point_masses))),
     ]
 
