@@ -227,6 +227,7 @@ class ModeViewsPanel(QWidget):
     def _connect(self) -> None:
         document = self.document
         document.results_changed.connect(self._results_changed)
+        document.preview_changed.connect(self._preview_changed)
         document.mode_selected.connect(self.select_mode)
         document.current_level_changed.connect(self._follow_level)
         self.clock.phase_changed.connect(self._draw_frame)
@@ -254,6 +255,11 @@ class ModeViewsPanel(QWidget):
                 self._drag_timer.start()
             return
         self.refresh()
+
+    def _preview_changed(self) -> None:
+        """A drag ended: show its final state now rather than when the throttle timer fires."""
+        if not self.document.previewing and self._drag_timer.isActive():
+            self.refresh()
 
     def refresh(self) -> None:
         """Rebuild from the document's latest results; the animation carries on from its phase.

@@ -257,6 +257,7 @@ class TablesPanel(QWidget):
         self._timer.setInterval(TABLE_REFRESH_MS)
         self._timer.timeout.connect(self.refresh)
         document.results_changed.connect(self._results_changed)
+        document.preview_changed.connect(self._preview_changed)
         self.refresh()
 
     def _results_changed(self) -> None:
@@ -267,6 +268,11 @@ class TablesPanel(QWidget):
             if not self._timer.isActive():
                 self._timer.start()
         else:
+            self.refresh()
+
+    def _preview_changed(self) -> None:
+        """A drag ended: show its final state now rather than when the throttle timer fires."""
+        if not self.document.previewing and self._timer.isActive():
             self.refresh()
 
     def showEvent(self, event) -> None:
