@@ -249,8 +249,4 @@ def _draw_label(painter: QPainter, text: str, centre: QPointF, n: QPointF, offse
         n = -n
     c = centre + n * (offset + max(width, height) * 0.35 * abs(n.x()))
     box = QRectF(c.x() - width / 2, c.y() - height / 2, width, height)
-    painter.setPen(Qt.PenStyle.NoPen)
-    painter.setBrush(QColor(255, 255, 255, 215))
-    painter.drawRoundedRect(box, 3, 3)
-    painter.setPen(colour.darker(140))
-    painter.drawText(box, Qt.AlignmentFlag.AlignCenter, text)
+    style.draw_label(painter, box, text, colour, 215, 140)

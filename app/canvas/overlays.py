@@ -152,8 +152,4 @@ def _label(painter: QPainter, at: QPointF, u: QPointF, text: str, colour: QColor
     gap = 13.0
     centre = at + u * gap + QPointF(u.x() * w / 2, u.y() * h / 2)
     box = QRectF(centre.x() - w / 2, centre.y() - h / 2, w, h)
-    painter.setPen(Qt.PenStyle.NoPen)
-    painter.setBrush(QColor(255, 255, 255, 220))
-    painter.drawRoundedRect(box, 3, 3)
-    painter.setPen(colour.darker(120))
-    painter.drawText(box, Qt.AlignmentFlag.AlignCenter, text)
+    style.draw_label(painter, box, text, colour, 220, 120)

@@ -2,8 +2,8 @@
 
 from __future__ import annotations
 
-from PySide6.QtCore import Qt
-from PySide6.QtGui import QColor, QPen
+from PySide6.QtCore import QRectF, Qt
+from PySide6.QtGui import QColor, QPainter, QPen
 
 from core.model import ElementKind
 
@@ -58,3 +58,12 @@ def pen(colour: QColor, width: float = 1.0, style: Qt.PenStyle = Qt.PenStyle.Sol
     p.setCapStyle(Qt.PenCapStyle.FlatCap)
     p.setJoinStyle(Qt.PenJoinStyle.MiterJoin)
     return p
+
+
+def draw_label(painter: QPainter, box: QRectF, text: str, colour: QColor, opacity: int, darker: int) -> None:
+    """Text on a rounded white plate, so a label stays legible over grid, outline and elements."""
+    painter.setPen(Qt.PenStyle.NoPen)
+    painter.setBrush(QColor(255, 255, 255, opacity))
+    painter.drawRoundedRect(box, 3, 3)
+    painter.setPen(colour.darker(darker))
+    painter.drawText(box, Qt.AlignmentFlag.AlignCenter, text)

@@ -22,7 +22,6 @@ from app.panels.fields import FieldForm, Row
 from app.panels.verdicts import colour_of, storey_state
 from app.units import AREA_LOAD, LENGTH
 from core.assembly import floor_masses
-from core.results import FloorMass
 
 GROUND_PIXELS = 22
 TOP_PIXELS = 16
@@ -222,9 +221,7 @@ class LevelStrip(QWidget):
 def level_rows(document: ProjectDocument, number: int) -> list[Row]:
     """Editable fields of level ``number`` and its figures (known even while the layout is unstable)."""
 
-    def floor() -> FloorMass:
-        return floor_masses(document.shown_project)[number - 1]
-
+    floor = floor_masses(document.shown_project)[number - 1]
     return [
         Row("Name", "name", "text"),
         Row("Storey height", "height", "number", LENGTH, tip="Height of the storey below this floor."),
@@ -236,8 +233,8 @@ def level_rows(document: ProjectDocument, number: int) -> list[Row]:
             tip="Dead load plus the combined share of imposed load, per floor area.",
         ),
         Row("Floor at", kind="readonly", getter=lambda _lv: f"+{document.shown_project.elevations[number - 1]:.2f} m"),
-        Row("Floor area", kind="readonly", getter=lambda _lv: f"{floor().area:.1f} m²"),
-        Row("Mass", kind="readonly", getter=lambda _lv: f"{floor().mass:.1f} t"),
+        Row("Floor area", kind="readonly", getter=lambda _lv: f"{floor.area:.1f} m²"),
+        Row("Mass", kind="readonly", getter=lambda _lv: f"{floor.mass:.1f} t"),
         Row("Point masses", kind="readonly", getter=lambda lv: str(len(lv.point_masses))),
     ]
 
