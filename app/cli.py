@@ -1,7 +1,7 @@
 """The ``poise`` command: open the editor, or analyse a project file in the terminal.
 
 ``poise [FILE]`` opens the editor (on a bundled sample without FILE); ``poise analyse FILE`` prints a
-readable summary, ``--json`` the documented JSON of :mod:`core.summary`. Bad input ends with exit
+readable summary, ``--json`` the documented JSON of :mod:`core.report.summary`. Bad input ends with exit
 status 2 and a one-line message on standard error, never a traceback.
 """
 
@@ -23,7 +23,9 @@ def _analyse_parser() -> argparse.ArgumentParser:
         prog="poise analyse", description="Analyse a .poise project and print the results."
     )
     parser.add_argument("file", type=Path, help="the .poise project file")
-    parser.add_argument("--json", action="store_true", help="print the results as JSON (layout in core/summary.py)")
+    parser.add_argument(
+        "--json", action="store_true", help="print the results as JSON (layout in core/report/summary.py)"
+    )
     return parser
 
 
@@ -40,8 +42,8 @@ def _editor_parser() -> argparse.ArgumentParser:
 def run_analyse(arguments: argparse.Namespace) -> int:
     """Print the summary or JSON of one project file."""
     from core.analysis import analyse
-    from core.fileio import load_project
-    from core.summary import format_summary, results_to_dict
+    from core.model.fileio import load_project
+    from core.report.summary import format_summary, results_to_dict
 
     project = load_project(arguments.file)
     results = analyse(project)

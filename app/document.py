@@ -17,8 +17,8 @@ from PySide6.QtGui import QUndoStack
 from app.commands import ReplaceProject
 from app.live_analysis import LiveAnalysis
 from core.errors import AnalysisError
-from core.fileio import load_project, save_project
 from core.model import Project
+from core.model.fileio import load_project, save_project
 from core.results import Results
 
 Segment = tuple[tuple[float, float], tuple[float, float]]

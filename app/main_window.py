@@ -49,8 +49,8 @@ from app.tools.rectangle import RectangleTool
 from app.tools.select import SelectTool, describe
 from app.tools.vertex import VertexTool
 from core.errors import ModelError
-from core.fileio import load_project
 from core.model import ElementKind, Project
+from core.model.fileio import load_project
 
 FILE_FILTER = "Poise projects (*.poise);;All files (*)"
 RECENT_LIMIT = 8

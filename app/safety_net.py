@@ -16,7 +16,7 @@ from types import TracebackType
 from PySide6.QtWidgets import QMessageBox, QWidget
 
 from app.document import ProjectDocument
-from core.fileio import save_project
+from core.model.fileio import save_project
 
 RECOVERY_SUFFIX = ".recovered.poise"
 

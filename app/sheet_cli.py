@@ -57,7 +57,7 @@ def run_sheet(args: argparse.Namespace) -> int:
     """Write the sheet; prints one line saying what was written. Returns the exit status."""
     from app.sheet.pdf import export_sheet_pdf
     from core.analysis import analyse
-    from core.fileio import load_project
+    from core.model.fileio import load_project
 
     try:
         project = load_project(args.file)

@@ -12,7 +12,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parent.parent))
 from app.resources import sample_projects
 from core.analysis import analyse
 from core.elements import _condensed
-from core.fileio import load_project
+from core.model.fileio import load_project
 
 
 def best_of(function, repeats: int) -> float:

@@ -12,11 +12,11 @@ sys.path.insert(0, str(Path(__file__).resolve().parent.parent))
 
 from app.resources import sample_projects
 from core.analysis import analyse
-from core.assembly import assemble_mass, assemble_stiffness, floor_masses
-from core.diagnostics import check_layout, check_stiffness
-from core.fileio import load_project
-from core.lateral import lateral_checks
-from core.modal import modal_analysis
+from core.lateral.evaluation import lateral_checks
+from core.model.fileio import load_project
+from core.solve.assembly import assemble_mass, assemble_stiffness, floor_masses
+from core.solve.diagnostics import check_layout, check_stiffness
+from core.solve.modal import modal_analysis
 
 
 def best_of(function, repeats: int = 50) -> float:

@@ -1,7 +1,7 @@
 """Frames per second of the mode animation (plan and 3D views) on each sample, offscreen.
 
 Prints, per sample and for its first mode:
-- core ms: computing one frame's arrays for both views (core.mode_frames);
+- core ms: computing one frame's arrays for both views (core.report.mode_frames);
 - sync fps: frames drawn back to back, each one phase step plus a forced repaint of both views;
 - timer fps: frames actually painted by each view while the animation clock runs for a few
   seconds through the event loop (the timer asks for about 60; aim at 30 or more).

@@ -2,13 +2,14 @@
 
 from __future__ import annotations
 
-from core.assembly import assemble_mass, assemble_stiffness, floor_masses
-from core.diagnostics import check_layout, check_stiffness
+from core.arrays import frozen_array
 from core.errors import AnalysisError
-from core.lateral import lateral_checks
-from core.modal import modal_analysis
+from core.lateral.evaluation import lateral_checks
 from core.model import Project
-from core.results import Results, frozen_array
+from core.results import Results
+from core.solve.assembly import assemble_mass, assemble_stiffness, floor_masses
+from core.solve.diagnostics import check_layout, check_stiffness
+from core.solve.modal import modal_analysis
 
 
 def analyse(project: Project) -> Results:

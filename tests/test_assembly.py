@@ -9,11 +9,11 @@ import numpy as np
 import pytest
 
 from core.analysis import analyse
-from core.assembly import element_transformation, floor_masses
 from core.errors import AnalysisError
-from core.geometry import area_properties
 from core.model import GRAVITY, Element, Level, PointMass, Project, Spring
+from core.model.geometry import area_properties
 from core.results import ModeKind
+from core.solve.assembly import element_transformation, floor_masses
 from tests.builders import rectangle, spring_building
 
 

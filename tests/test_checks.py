@@ -1,5 +1,5 @@
 """Lateral checks: centres, torsion ratio, A_x, drifts, element shares, regularity, mode order,
-and the rule sets (core/centres.py, core/checks.py, core/lateral.py through analyse())."""
+and the rule sets (core/lateral/centres.py, checks.py, evaluation.py through analyse())."""
 
 from __future__ import annotations
 
@@ -9,9 +9,9 @@ import numpy as np
 import pytest
 
 from core.analysis import analyse
-from core.centres import element_storey_stiffness
-from core.checks import amplification, end_ratio, mass_ratios, stiffness_ratios
-from core.lateral_results import TORSION_RATIO, Status
+from core.lateral.centres import element_storey_stiffness
+from core.lateral.checks import amplification, end_ratio, mass_ratios, stiffness_ratios
+from core.lateral.records import TORSION_RATIO, Status
 from core.model import (
     GRAVITY,
     BracedFrame,

@@ -11,7 +11,7 @@ import pytest
 
 from app.cli import main
 from app.resources import DEFAULT_SAMPLE, sample_path, sample_projects
-from core.summary import CAUTION
+from core.report.summary import CAUTION
 
 SAMPLES = sample_projects()
 

@@ -12,7 +12,7 @@ from app.exchange.csv_export import export_csv, results_tables
 from app.exchange.errors import ExchangeError
 from app.resources import sample_projects
 from core.analysis import analyse
-from core.fileio import load_project
+from core.model.fileio import load_project
 
 SAMPLES = sample_projects()
 

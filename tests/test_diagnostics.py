@@ -1,4 +1,4 @@
-"""Stability diagnostics (core/diagnostics.py): each finding from a purpose-built unstable model,
+"""Stability diagnostics (core/solve/diagnostics.py): each finding from a purpose-built unstable model,
 with its message asserted; analyse() stops cleanly with AnalysisError, never a numpy error."""
 
 from __future__ import annotations
@@ -7,10 +7,10 @@ import numpy as np
 import pytest
 
 from core.analysis import analyse
-from core.assembly import assemble_stiffness, floor_masses
-from core.diagnostics import check_stiffness
 from core.errors import AnalysisError
 from core.model import Element, Level, Project, ShearWall, Spring
+from core.solve.assembly import assemble_stiffness, floor_masses
+from core.solve.diagnostics import check_stiffness
 from tests.builders import rectangle
 
 WALL = ShearWall()

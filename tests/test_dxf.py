@@ -15,7 +15,7 @@ from app.exchange.dxf_underlay import CHORD_TOLERANCE, read_underlay
 from app.exchange.errors import ExchangeError, MissingUnitsError
 from app.resources import sample_projects
 from core.analysis import analyse
-from core.fileio import load_project
+from core.model.fileio import load_project
 
 SAMPLES = sample_projects()
 TOLERANCE = 1e-6  # m, the acceptance tolerance of the round trip

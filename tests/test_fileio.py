@@ -9,7 +9,6 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from core.errors import ModelError
-from core.fileio import FORMAT_VERSION, dumps, load_project, loads, save_project
 from core.model import (
     BracedFrame,
     BracePattern,
@@ -21,6 +20,7 @@ from core.model import (
     ShearWall,
     Spring,
 )
+from core.model.fileio import FORMAT_VERSION, dumps, load_project, loads, save_project
 from tests.builders import rectangle
 
 

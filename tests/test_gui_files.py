@@ -9,8 +9,8 @@ from PySide6.QtCore import QSettings
 
 from app.main_window import MainWindow
 from app.resources import sample_path
-from core.fileio import load_project
 from core.model import Project
+from core.model.fileio import load_project
 from tests.test_gui_support import balanced_box, drag, make_window, settle
 
 

@@ -10,7 +10,7 @@ from app.panels.results import mode_type
 from app.resources import sample_path
 from core.analysis import analyse
 from core.errors import AnalysisError
-from core.fileio import load_project
+from core.model.fileio import load_project
 from tests.test_gui_support import drag, frame, make_window, one_storey, settle
 
 

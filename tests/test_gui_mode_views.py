@@ -22,7 +22,7 @@ from app.document import ProjectDocument
 from app.mode_views.clock import STEP_FRACTION, ModeClock
 from app.mode_views.panel import ModeViewsPanel, rigidity_centres
 from app.resources import sample_path
-from core.mode_frames import LayerMotion, building_geometry, peak_scale
+from core.report.mode_frames import LayerMotion, building_geometry, peak_scale
 
 SAMPLES = ("office_5_storey_braced", "residential_8_storey_walls", "pavilion_1_storey")
 SCREENSHOTS = Path(__file__).parent / "screenshots"

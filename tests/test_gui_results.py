@@ -8,8 +8,8 @@ from PySide6.QtGui import QGuiApplication
 
 from app.panels.verdicts import worst
 from app.resources import sample_path
-from core.fileio import load_project
-from core.lateral_results import Status, Verdict
+from core.lateral.records import Status, Verdict
+from core.model.fileio import load_project
 from tests.test_gui_support import make_window
 
 

@@ -7,7 +7,7 @@ import sys
 from PySide6.QtWidgets import QMessageBox
 
 from app import safety_net
-from core.fileio import load_project, save_project
+from core.model.fileio import load_project, save_project
 from tests.test_gui_support import make_window
 
 

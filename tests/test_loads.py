@@ -1,4 +1,4 @@
-"""Design spectra, base shear, vertical distributions and load cases (core/loads.py).
+"""Design spectra, base shear, vertical distributions and load cases (core/lateral/loads.py).
 
 Each external value names its source beside it; "[memory]" marks a value recalled, not read in
 the standard (see /work/shared/references.md).
@@ -11,9 +11,7 @@ import math
 import numpy as np
 import pytest
 
-from core.assembly import GRAVITY
-from core.lateral_results import LoadCase
-from core.loads import (
+from core.lateral.loads import (
     accidental_eccentricities,
     approximate_period_asce7,
     approximate_period_en1998,
@@ -30,6 +28,7 @@ from core.loads import (
     static_load,
     vertical_distribution,
 )
+from core.lateral.records import LoadCase
 from core.model import (
     Asce7Spectrum,
     Eurocode8Spectrum,
@@ -40,6 +39,7 @@ from core.model import (
     SystemType,
 )
 from core.results import FloorMass
+from core.solve.assembly import GRAVITY
 
 # --- EN 1998-1 §3.2.2 -------------------------------------------------------------------------
 

@@ -1,4 +1,4 @@
-"""Frame geometry of the animated mode shapes (core.mode_frames), checked without a display.
+"""Frame geometry of the animated mode shapes (core.report.mode_frames), checked without a display.
 
 The rigid floor motion is checked against an independent formula: a plan point as a complex
 number z moves under a floor motion (u, θ) about the floor's mass centre c to
@@ -14,17 +14,6 @@ import math
 import numpy as np
 import pytest
 
-from core.mode_frames import (
-    BASE,
-    QUAD_ROWS,
-    AttachedPoints,
-    LayerMotion,
-    ViewAngle,
-    building_geometry,
-    height_profile,
-    peak_scale,
-    unit_peak,
-)
 from core.model import (
     BracedFrame,
     BracePattern,
@@ -35,6 +24,17 @@ from core.model import (
     Project,
     ShearWall,
     Spring,
+)
+from core.report.mode_frames import (
+    BASE,
+    QUAD_ROWS,
+    AttachedPoints,
+    LayerMotion,
+    ViewAngle,
+    building_geometry,
+    height_profile,
+    peak_scale,
+    unit_peak,
 )
 from core.results import FloorMass, Mode
 

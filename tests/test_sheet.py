@@ -24,10 +24,10 @@ from app.sheet import export_sheet_pdf, page_layout, render_sheet
 from app.sheet.content import listed_modes, period_text, sheet_content, worst_torsion_level
 from app.sheet.options import SheetOptions
 from core.analysis import analyse
-from core.fileio import load_project
-from core.lateral_results import STATUS_ORDER
+from core.lateral.records import STATUS_ORDER
 from core.model import Element, Level, Project, ShearWall
-from core.summary import CAUTION
+from core.model.fileio import load_project
+from core.report.summary import CAUTION
 
 SAMPLES = sample_projects()
 MM_PER_POINT = 25.4 / 72

@@ -14,7 +14,7 @@ from dataclasses import dataclass
 from pathlib import Path
 
 from app.exchange.errors import ExchangeError
-from core.lateral_results import DIRECTIONS, LateralResults
+from core.lateral.records import DIRECTIONS, LateralResults
 from core.model import Project
 from core.results import Results
 

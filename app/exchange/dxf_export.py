@@ -119,7 +119,7 @@ def _text(msp, text: str, point: tuple[float, float], height: float, layer: str,
 
 def _centres(msp, results: Results, level: int, scale: float) -> None:
     """Mass centre (circle with a cross), rigidity centre (a square on its corner with a smaller
-    square inside: the marks of core.mode_frames) and the line between them."""
+    square inside: the marks of core.report.mode_frames) and the line between them."""
     layer = layer_name(level, "CENTRES")
     labels = layer_name(level, "LABELS")
     r = SYMBOL_RADIUS * scale

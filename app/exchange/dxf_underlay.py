@@ -27,8 +27,8 @@ from shapely.geometry import Polygon
 from shapely.geometry.polygon import orient
 
 from app.exchange.errors import ExchangeError, MissingUnitsError
+from core.arrays import FloatArray, frozen_array
 from core.model import Ring
-from core.results import FloatArray, frozen_array
 
 DRAWING_UNITS: dict[int, tuple[str, float]] = {
     1: ("in", 0.0254),

@@ -18,8 +18,8 @@ from PySide6.QtGui import QBrush, QColor
 from app.canvas.style import KIND_COLOURS, MASS_CENTRE, PAPER, RIGIDITY_CENTRE, pen
 from app.mode_views.items import FilledQuads, SegmentLines
 from app.mode_views.palette import MOVING_FLOOR, TEXT, UNDEFORMED
-from core.mode_frames import AttachedPoints, BuildingGeometry, LayerMotion, Point3, ViewAngle
 from core.model import ElementKind
+from core.report.mode_frames import AttachedPoints, BuildingGeometry, LayerMotion, Point3, ViewAngle
 from core.results import FloorMass, Mode
 
 DEGREES_PER_PIXEL = 0.5

@@ -21,7 +21,7 @@ from app.mode_views.palette import (
     TEXT,
     colour_key,
 )
-from core.mode_frames import height_profile
+from core.report.mode_frames import height_profile
 from core.results import ModeKind, Results
 
 BAR_WIDTH = 0.7

@@ -2,7 +2,7 @@
 
 ``SegmentLines`` is one pyqtgraph curve holding any number of separate segments (rows 2i, 2i+1);
 ``FilledQuads`` fills any number of closed quads with one path. Both take the arrays that
-``core.mode_frames`` produces, which are always finite, so the finite checks are skipped.
+``core.report.mode_frames`` produces, which are always finite, so the finite checks are skipped.
 """
 
 from __future__ import annotations
@@ -12,8 +12,8 @@ import pyqtgraph as pg
 from PySide6.QtCore import QRectF, Qt
 from PySide6.QtGui import QBrush, QPainter, QPainterPath, QPen
 
-from core.mode_frames import QUAD_ROWS
-from core.results import FloatArray
+from core.arrays import FloatArray
+from core.report.mode_frames import QUAD_ROWS
 
 
 class SegmentLines(pg.PlotCurveItem):

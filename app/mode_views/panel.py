@@ -33,8 +33,8 @@ from app.mode_views.charts import MassRatioChart, PeriodChart, ShapeChart
 from app.mode_views.clock import DEFAULT_CYCLE_SECONDS, ModeClock
 from app.mode_views.palette import UNDEFORMED, mode_caption, mode_label
 from app.mode_views.plan_view import PlanMotionView
-from core.mode_frames import BuildingGeometry, building_geometry, peak_scale
 from core.model import Point
+from core.report.mode_frames import BuildingGeometry, building_geometry, peak_scale
 from core.results import Results
 
 if TYPE_CHECKING:

@@ -11,8 +11,8 @@ from PySide6.QtWidgets import QGraphicsItem
 from app.canvas.style import KIND_COLOURS, MASS_CENTRE, PAPER, RIGIDITY_CENTRE, pen
 from app.mode_views.items import SegmentLines
 from app.mode_views.palette import MOVING_FLOOR, OTHER_FLOORS, UNDEFORMED
-from core.mode_frames import AttachedPoints, BuildingGeometry, LayerMotion
 from core.model import ElementKind
+from core.report.mode_frames import AttachedPoints, BuildingGeometry, LayerMotion
 from core.results import FloorMass, Mode
 
 _KIND_WIDTH = {

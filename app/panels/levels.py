@@ -21,7 +21,7 @@ from app.document import ProjectDocument
 from app.panels.fields import FieldForm, Row
 from app.panels.verdicts import colour_of, storey_state
 from app.units import AREA_LOAD, LENGTH
-from core.assembly import floor_masses
+from core.solve.assembly import floor_masses
 
 GROUND_PIXELS = 22
 TOP_PIXELS = 16

@@ -19,7 +19,7 @@ from app.canvas import style
 from app.document import ProjectDocument
 from app.panels.results import CAUTION, fmt_number, mode_type
 from app.panels.verdicts import STATUS_WORDS, check_summaries, colour_of
-from core.lateral_results import TORSION_RATIO
+from core.lateral.records import TORSION_RATIO
 
 GREY = QColor("#6d695f")
 HEADING = QFont("DejaVu Sans", 9, QFont.Weight.Bold)

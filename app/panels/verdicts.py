@@ -8,7 +8,7 @@ from dataclasses import dataclass
 from PySide6.QtGui import QColor
 
 from app.canvas import style
-from core.lateral_results import STATUS_ORDER, TORSION_RATIO, LateralResults, Status, Verdict
+from core.lateral.records import STATUS_ORDER, TORSION_RATIO, LateralResults, Status, Verdict
 
 TORSION_CHECKS = frozenset(
     {TORSION_RATIO, "eccentricity over torsional radius", "torsional radius over radius of gyration"}

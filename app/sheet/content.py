@@ -11,7 +11,7 @@ import datetime as _dt
 import math
 from dataclasses import dataclass
 
-from core.lateral_results import DIRECTIONS, STATUS_ORDER, LateralResults, Status, Verdict
+from core.lateral.records import DIRECTIONS, STATUS_ORDER, LateralResults, Status, Verdict
 from core.model import (
     BracedFrame,
     ElementKind,
@@ -22,8 +22,8 @@ from core.model import (
     Settings,
     ShearWall,
 )
+from core.report.summary import CAUTION
 from core.results import Mode, Results
-from core.summary import CAUTION
 
 MASS_SHARE_TARGET = 0.90
 """Modes are listed until their effective masses reach this share in x and in y

@@ -1,7 +1,7 @@
 """Small sketches of the first modes for the sheet, drawn from core data with QPainter.
 
 Each sketch shows the top floor's outline at the mode's peak over its undeformed outline (the
-same rigid-floor motion as the animated views, ``core.mode_frames``) and, beside it, the mode's
+same rigid-floor motion as the animated views, ``core.report.mode_frames``) and, beside it, the mode's
 shape over the height: u_x, u_y and θ·l_s per floor, scaled to the largest.
 """
 
@@ -16,8 +16,8 @@ from app.mode_views.palette import KIND_WORDS, ROTATION_COLOUR, X_COLOUR, Y_COLO
 from app.sheet.content import period_text
 from app.sheet.painting import ALIGN_LEFT, INK, MUTED, RULE, Paper
 from app.sheet.plan_drawing import MASS_COLOUR, mass_centre_mark
-from core.mode_frames import AttachedPoints, LayerMotion, building_geometry, height_profile, peak_scale
 from core.model import Project
+from core.report.mode_frames import AttachedPoints, LayerMotion, building_geometry, height_profile, peak_scale
 from core.results import Mode, Results
 
 PEAK_SHARE = 0.15
@@ -91,7 +91,7 @@ def _roof_at_peak(paper: Paper, box: QRectF, project: Project, results: Results,
 
 
 def _segments(painter, points: list[QPointF]) -> None:
-    """Segments as drawn by core.mode_frames: rows 2i and 2i + 1 form one segment."""
+    """Segments as drawn by core.report.mode_frames: rows 2i and 2i + 1 form one segment."""
     for a, b in zip(points[0::2], points[1::2], strict=True):
         painter.drawLine(a, b)
 

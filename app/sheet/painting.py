@@ -13,7 +13,7 @@ from dataclasses import dataclass
 from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QBrush, QColor, QFont, QPainter, QPen
 
-from core.lateral_results import Status
+from core.lateral.records import Status
 
 FONT_FAMILIES = ["DejaVu Sans", "Liberation Sans", "Arial", "Helvetica"]
 NO_LIGATURES = ("liga", "clig")

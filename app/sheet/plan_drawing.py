@@ -1,7 +1,7 @@
 """The plan of one level on the sheet, at a true drawing scale: outline, openings, the elements
 of the storey below with their ids, the centres of mass and rigidity and the eccentricity.
 
-Symbols and colours are the editor's (``core.mode_frames``, ``app.canvas.style``): the mass centre
+Symbols and colours are the editor's (``core.report.mode_frames``, ``app.canvas.style``): the mass centre
 is a circle with a cross, the rigidity centre a square on its corner with a smaller square inside.
 Element kinds differ in colour and in shape, so the plan still reads on a grey printer: walls are
 solid bars, braced frames carry their brace pattern per bay, moment frames show their rigid

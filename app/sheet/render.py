@@ -38,7 +38,7 @@ from app.sheet.painting import (
     TableLayout,
 )
 from app.sheet.plan_drawing import draw_legend, draw_plan
-from core.lateral_results import STATUS_ORDER, Status
+from core.lateral.records import STATUS_ORDER, Status
 from core.model import Project
 from core.results import Results
 

@@ -18,11 +18,11 @@ from typing import Any
 import numpy as np
 import numpy.typing as npt
 
+from core.arrays import FloatArray
 from core.elements import braced_frame, moment_frame, shear_wall, spring
 from core.elements.forces import CondensedElement, ElementForces
 from core.errors import ModelError
 from core.model import BracedFrame, ElementProperties, MomentFrame, ShearWall, Spring
-from core.results import FloatArray
 
 __all__ = ["ElementForces", "condensed_stiffness", "member_forces"]
 

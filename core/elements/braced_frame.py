@@ -25,10 +25,10 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from core.arrays import FloatArray, frozen_array
 from core.elements.forces import ElementForces
 from core.elements.planar_frame import CondensedFrame, IntArray, PlanarFrame
 from core.model import BracedFrame, BracePattern
-from core.results import FloatArray, frozen_array
 
 
 @dataclass(frozen=True)

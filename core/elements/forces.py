@@ -10,7 +10,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Protocol
 
-from core.results import FloatArray
+from core.arrays import FloatArray
 
 
 @dataclass(frozen=True)

@@ -24,8 +24,8 @@ import numpy as np
 import numpy.typing as npt
 from scipy.linalg import LinAlgError, cho_factor, cho_solve
 
+from core.arrays import FloatArray, frozen_array
 from core.errors import ModelError
-from core.results import FloatArray, frozen_array
 
 IntArray = npt.NDArray[np.intp]
 _MemberRow = tuple[int, int, float, float, float, bool, bool]

@@ -13,10 +13,10 @@ from __future__ import annotations
 from dataclasses import dataclass
 from itertools import pairwise
 
+from core.arrays import FloatArray, frozen_array
 from core.elements.forces import ElementForces
 from core.elements.planar_frame import CondensedFrame, PlanarFrame
 from core.model import ShearWall
-from core.results import FloatArray, frozen_array
 
 SHEAR_COEFFICIENT = 5.0 / 6.0
 """κ of a solid rectangular section (Timoshenko beam theory)."""

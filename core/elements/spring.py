@@ -10,10 +10,10 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from core.arrays import FloatArray, frozen_array
 from core.elements.forces import ElementForces
 from core.errors import ModelError
 from core.model import Spring
-from core.results import FloatArray, frozen_array
 
 
 @dataclass(frozen=True)

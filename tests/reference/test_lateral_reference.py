@@ -22,10 +22,10 @@ import pytest
 
 from app.resources import sample_path
 from core.analysis import analyse
-from core.assembly import GRAVITY, assemble_stiffness, floor_masses
-from core.fileio import load_project
-from core.loads import vertical_distribution
+from core.lateral.loads import vertical_distribution
 from core.model import Element, Level, LoadMethod, Project, Settings, ShearWall
+from core.model.fileio import load_project
+from core.solve.assembly import GRAVITY, assemble_stiffness, floor_masses
 
 WALL = ShearWall()
 H = 4.0

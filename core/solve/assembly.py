@@ -8,15 +8,40 @@ acts on the displacements of its floors relative to its bottom floor, so K = Σ 
 
 from __future__ import annotations
 
+from dataclasses import dataclass
+
 import numpy as np
 
+from core.arrays import FloatArray
 from core.elements import condensed_stiffness
 from core.errors import AnalysisError
-from core.geometry import area_properties
-from core.model import GRAVITY, Element, Project
-from core.results import FloatArray, FloorMass
+from core.model import GRAVITY, Element, Point, Project
+from core.model.geometry import area_properties
 
 DOF_PER_FLOOR = 3
+
+
+@dataclass(frozen=True)
+class FloorMass:
+    """Seismic mass of one floor and where it sits."""
+
+    level: int
+    """Level index, 1 = the first floor above the base."""
+    name: str
+    elevation: float
+    area: float
+    """Net floor area (openings removed), m²."""
+    mass: float
+    """t."""
+    centre: Point
+    """Centre of mass, m."""
+    inertia: float
+    """Mass moment of inertia about the vertical axis through the centre, t·m²."""
+
+    @property
+    def radius_of_gyration(self) -> float:
+        """l_s = √(J/m), the floor's mass radius of gyration (EN 1998-1 §4.2.3.2(6))."""
+        return float(np.sqrt(self.inertia / self.mass)) if self.mass > 0 else 0.0
 
 
 def floor_masses(project: Project) -> tuple[FloorMass, ...]:

@@ -25,8 +25,10 @@ from dataclasses import dataclass
 import numpy as np
 import numpy.typing as npt
 
+from core.arrays import FloatArray
 from core.model import BracedFrame, BracePattern, Element, ElementKind, MomentFrame, Point, Project
-from core.results import FloatArray, FloorMass, Mode
+from core.solve.assembly import FloorMass
+from core.solve.modal import Mode
 
 IntArray = npt.NDArray[np.int64]
 Point3 = tuple[float, float, float]

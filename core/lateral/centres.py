@@ -19,9 +19,9 @@ from dataclasses import dataclass
 import numpy as np
 from scipy.linalg import cho_factor, cho_solve
 
-from core.assembly import element_matrix
+from core.arrays import FloatArray
 from core.model import Element, Project
-from core.results import FloatArray, FloorMass
+from core.solve.assembly import FloorMass, element_matrix
 
 RELATIVE_TOLERANCE = 1e-12
 

@@ -20,10 +20,10 @@ import numpy as np
 import shapely
 from scipy.linalg import eigh
 
-from core.assembly import element_transformation
+from core.arrays import FloatArray
 from core.errors import AnalysisError
 from core.model import Element, Level, Project
-from core.results import FloatArray, FloorMass
+from core.solve.assembly import FloorMass, element_transformation
 
 ZERO_LENGTH = 1e-6
 """Element lines shorter than this, m, have no direction."""

@@ -14,11 +14,11 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from core.assembly import GRAVITY
-from core.geometry import bounding_size
-from core.lateral_results import Direction, LoadCase, StaticLoad
+from core.arrays import FloatArray, frozen_array
+from core.lateral.records import Direction, LoadCase, StaticLoad
 from core.model import Asce7Spectrum, Eurocode8Spectrum, LoadMethod, Project, Settings, SystemType
-from core.results import FloatArray, FloorMass, frozen_array
+from core.model.geometry import bounding_size
+from core.solve.assembly import GRAVITY, FloorMass
 
 
 @dataclass(frozen=True)

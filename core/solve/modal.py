@@ -8,14 +8,68 @@ through the building's overall mass centre, so each direction's mass ratios sum 
 
 from __future__ import annotations
 
+from dataclasses import dataclass
+from enum import StrEnum
+
 import numpy as np
 from scipy.linalg import eigh
 
+from core.arrays import FloatArray, frozen_array
 from core.errors import AnalysisError
-from core.results import FloatArray, FloorMass, Mode, frozen_array
+from core.solve.assembly import FloorMass
 
 SINGULAR_TOLERANCE = 1e-10
 """Smallest ω² over the largest below which the stiffness is taken as singular."""
+
+
+class ModeKind(StrEnum):
+    """What a mode mostly does, judged by the shares of its kinetic energy."""
+
+    X = "x"
+    Y = "y"
+    TORSION = "torsion"
+    MIXED = "mixed"
+
+
+DOMINANT_SHARE = 0.7
+"""A mode is called x, y or torsion when that component holds at least this share of its kinetic
+energy, otherwise mixed (our own threshold; a common-practice reading, no code sets it)."""
+
+
+@dataclass(frozen=True)
+class Mode:
+    """One natural mode of the rigid-diaphragm model."""
+
+    number: int
+    """1-based, longest period first."""
+    omega: float
+    """Circular frequency, rad/s."""
+    shape: FloatArray
+    """(floors, 3) array of [u_x, u_y, θ] at each floor's mass centre, mass-normalised (φᵀMφ = 1)."""
+    participation: tuple[float, float, float]
+    """Γ_x, Γ_y, Γ_θ = φᵀ M ι for unit ground translation in x, y and rigid rotation about the
+    building's overall mass centre."""
+    mass_ratio: tuple[float, float, float]
+    """Effective modal mass over the total, in x, y and rotation."""
+    cumulative: tuple[float, float, float]
+    """Sum of mass ratios up to and including this mode."""
+    shares: tuple[float, float, float]
+    """Shares of the mode's kinetic energy in x translation, y translation and rotation (sum 1)."""
+
+    @property
+    def period(self) -> float:
+        return float(2 * np.pi / self.omega)
+
+    @property
+    def frequency(self) -> float:
+        return float(self.omega / (2 * np.pi))
+
+    @property
+    def kind(self) -> ModeKind:
+        index = int(np.argmax(self.shares))
+        if self.shares[index] < DOMINANT_SHARE:
+            return ModeKind.MIXED
+        return (ModeKind.X, ModeKind.Y, ModeKind.TORSION)[index]
 
 
 def influence_vectors(floors: tuple[FloorMass, ...]) -> FloatArray:

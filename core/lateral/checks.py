@@ -12,7 +12,8 @@ from collections.abc import Sequence
 
 import numpy as np
 
-from core.lateral_results import (
+from core.arrays import FloatArray, frozen_array
+from core.lateral.records import (
     DIRECTIONS,
     TORSION_RATIO,
     CaseResult,
@@ -24,7 +25,8 @@ from core.lateral_results import (
     Verdict,
 )
 from core.model import LoadMethod, Project, RuleSet, Settings
-from core.results import FloatArray, FloorMass, Mode, frozen_array
+from core.solve.assembly import FloorMass
+from core.solve.modal import Mode
 
 TORSION_IRREGULAR = 1.2
 """ASCE 7-16 Table 12.3-1 type 1a: torsional irregularity above this ratio."""

@@ -12,7 +12,7 @@ JSON layout (``poise analyse FILE --json``), all values in kN, m, t, s, rad:
   energy shares [x, y, θ]), ``participation`` ([Γ_x, Γ_y, Γ_θ]), ``mass_ratio`` and
   ``cumulative`` ([x, y, θ] effective modal mass over the total), ``shape`` (per floor
   [u_x, u_y, θ] at the mass centre, mass-normalised).
-- ``lateral``: the lateral checks, fields named as in :mod:`core.lateral_results` (where every
+- ``lateral``: the lateral checks, fields named as in :mod:`core.lateral.records` (where every
   field is documented): ``rule_set``, ``status`` (worst verdict: ``pass``, ``warn``, ``fail``),
   ``drift_amplification``, ``drift_reduction``, ``drift_limit``, ``accidental_eccentricity``
   (per floor [e for x loads, e for y loads], m); ``loads`` (x then y: ``direction``, ``method``,
@@ -39,7 +39,7 @@ from typing import Any
 
 import numpy as np
 
-from core.lateral_results import LateralResults, Status
+from core.lateral.records import LateralResults, Status
 from core.model import Project
 from core.results import Results
 

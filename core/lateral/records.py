@@ -12,8 +12,8 @@ from __future__ import annotations
 from dataclasses import dataclass
 from enum import StrEnum
 
+from core.arrays import FloatArray
 from core.model import Point
-from core.results import FloatArray
 
 Direction = str
 """``"x"`` or ``"y"``: the direction of a load, of an analysis, or of a stiffness."""

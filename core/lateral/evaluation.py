@@ -14,9 +14,10 @@ from functools import lru_cache
 import numpy as np
 from scipy.linalg import cho_factor, cho_solve
 
-from core.assembly import element_matrix, element_storey_heights, element_transformation
-from core.centres import StoreyStiffness, no_twist_offsets, storey_stiffnesses
-from core.checks import (
+from core.arrays import FloatArray, frozen_array
+from core.elements import member_forces
+from core.lateral.centres import StoreyStiffness, no_twist_offsets, storey_stiffnesses
+from core.lateral.checks import (
     case_results,
     design_drift_ratios,
     drift_amplification,
@@ -29,30 +30,30 @@ from core.checks import (
     stiffness_ratios,
     storey_drifts,
 )
-from core.elements import member_forces
-from core.lateral_results import (
-    DIRECTIONS,
-    CaseResult,
-    ElementDemand,
-    LateralResults,
-    StoreyLateral,
-)
-from core.loads import (
+from core.lateral.loads import (
     accidental_eccentricities,
     case_load_vector,
     load_cases,
     static_load,
     vertical_distribution,
 )
+from core.lateral.records import (
+    DIRECTIONS,
+    CaseResult,
+    ElementDemand,
+    LateralResults,
+    StoreyLateral,
+)
 from core.model import BracedFrame, Element, Project
-from core.results import FloatArray, FloorMass, Mode, frozen_array
+from core.solve.assembly import FloorMass, element_matrix, element_storey_heights, element_transformation
+from core.solve.modal import Mode
 
 
 def lateral_checks(
     project: Project, floors: tuple[FloorMass, ...], K: FloatArray, modes: Sequence[Mode]
 ) -> LateralResults:
     """Centres, radii, static load cases, torsion ratios, drifts, element demands, regularity and
-    verdicts. ``K`` must have passed :func:`core.diagnostics.check_stiffness`."""
+    verdicts. ``K`` must have passed :func:`core.solve.diagnostics.check_stiffness`."""
     settings = project.settings
     n = len(floors)
     masses, centres = floor_arrays(floors)

@@ -1,0 +1,1 @@
+"""The lateral stage: spectra and static loads, load-case response, centres, checks."""

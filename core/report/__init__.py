@@ -1,0 +1,1 @@
+"""The report stage: text and JSON of results, mode geometry for the views."""

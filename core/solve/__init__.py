@@ -1,0 +1,1 @@
+"""The solve stage: floor masses, K and M, stability diagnostics, the eigenproblem."""

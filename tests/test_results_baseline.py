@@ -1,0 +1,47 @@
+"""The samples' results stay what they were when the baseline was saved (tests/fixtures/baseline/).
+
+The baseline is the JSON of ``poise analyse --json`` taken before core was reorganised into stages;
+a change that moves code must leave every number equal to 1e-12 relative. A change that means to
+alter a result regenerates the baseline in the same commit and says why.
+"""
+
+from __future__ import annotations
+
+import json
+import math
+from pathlib import Path
+
+import pytest
+
+from app.resources import sample_projects
+from core.analysis import analyse
+from core.model.fileio import load_project
+from core.report.summary import results_to_dict
+
+BASELINE = Path(__file__).parent / "fixtures" / "baseline"
+
+
+def numbers(value: object, path: str = "") -> dict[str, float]:
+    """Every number in a JSON tree, keyed by its path (strings and text are not compared)."""
+    found: dict[str, float] = {}
+    if isinstance(value, dict):
+        for key, item in value.items():
+            found.update(numbers(item, f"{path}.{key}"))
+    elif isinstance(value, list):
+        for index, item in enumerate(value):
+            found.update(numbers(item, f"{path}[{index}]"))
+    elif isinstance(value, bool) or value is None:
+        pass
+    elif isinstance(value, int | float):
+        found[path] = float(value)
+    return found
+
+
+@pytest.mark.parametrize("sample", sample_projects(), ids=lambda p: p.stem)
+def test_sample_results_equal_the_saved_baseline(sample: Path) -> None:
+    project = load_project(sample)
+    now = numbers(json.loads(json.dumps(results_to_dict(project, analyse(project)))))
+    saved = numbers(json.loads((BASELINE / f"{sample.stem}.json").read_text()))
+    assert now.keys() == saved.keys()
+    for key, value in saved.items():
+        assert math.isclose(now[key], value, rel_tol=1e-12, abs_tol=1e-12), key
