@@ -1,28 +1,19 @@
-"""The one entry point the GUI and the command line call: ``analyse(project) -> Results``."""
+"""The one entry point the GUI and the command line call: ``analyse(project) -> Results``.
+
+It runs through one module-level :class:`core.engine.AnalysisSession`, so any caller that
+analyses a sequence of related projects (a drag, the what-if map, a script) gets the session's
+reuse; an unrelated project is simply analysed from scratch.
+"""
 
 from __future__ import annotations
 
-from core.arrays import frozen_array
-from core.errors import AnalysisError
-from core.lateral.evaluation import lateral_checks
+from core.engine import AnalysisSession
 from core.model import Project
 from core.results import Results
-from core.solve.assembly import assemble_mass, assemble_stiffness, floor_masses
-from core.solve.diagnostics import check_layout, check_stiffness
-from core.solve.modal import modal_analysis
+
+_SESSION = AnalysisSession()
 
 
 def analyse(project: Project) -> Results:
     """Masses, stiffness and modes of ``project``; raises AnalysisError if it cannot stand."""
-    if not project.levels:
-        raise AnalysisError("the project has no levels: draw a floor outline first")
-    check_layout(project)
-    floors = floor_masses(project)
-    K = assemble_stiffness(project, floors)
-    check_stiffness(project, floors, K)
-    M = assemble_mass(floors)
-    modes = modal_analysis(K, M, floors)
-    lateral = lateral_checks(project, floors, K, modes)
-    return Results(
-        floors=floors, stiffness=frozen_array(K), mass=frozen_array(M), modes=modes, lateral=lateral
-    )
+    return _SESSION.analyse(project)

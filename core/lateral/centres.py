@@ -14,6 +14,7 @@ J. Struct. Eng. 116(5)); the two we report agree for one storey and for "proport
 
 from __future__ import annotations
 
+from collections.abc import Sequence
 from dataclasses import dataclass
 
 import numpy as np
@@ -65,20 +66,32 @@ def element_pattern(element: Element, patterns: FloatArray) -> FloatArray:
 
 
 def storey_stiffnesses(
-    project: Project, floors: tuple[FloorMass, ...], patterns: FloatArray
+    project: Project,
+    floors: tuple[FloorMass, ...],
+    patterns: FloatArray,
+    element_stiffness: Sequence[FloatArray] | None = None,
 ) -> tuple[StoreyStiffness, ...]:
-    """Definition (a) for every storey. ``patterns`` is (2, N): the floor forces in x and in y."""
-    centres = np.array([f.centre for f in floors], dtype=float)
+    """Definition (a) for every storey. ``patterns`` is (2, N): the floor forces in x and in y.
+    ``element_stiffness`` holds each element's :func:`element_storey_stiffness` under its
+    :func:`element_pattern` if the caller kept them from an earlier, equal pattern."""
+    if element_stiffness is None:
+        element_stiffness = [
+            element_storey_stiffness(element_matrix(project, e), element_pattern(e, patterns))
+            for e in project.elements
+        ]
+    centres = np.array([f.centre for f in floors], dtype=float).reshape(-1, 2)
     matrices = np.zeros((len(floors), 3, 3))
-    for element in project.elements:
-        k = element_storey_stiffness(element_matrix(project, element), element_pattern(element, patterns))
-        spanned = slice(element.bottom, element.top)
-        c, s = element.direction
-        x, y = element.start
-        a = np.empty((element.storey_count, 3))
+    if project.elements:
+        # One row per (element, storey spanned), in element order, so the sums run as element by element.
+        storey = np.concatenate([np.arange(e.bottom, e.top) for e in project.elements])
+        k = np.concatenate(element_stiffness)
+        lines = np.array([(*e.direction, *e.start) for e in project.elements], dtype=float)
+        counts = [e.storey_count for e in project.elements]
+        c, s, x, y = np.repeat(lines, counts, axis=0).T
+        a = np.empty((len(storey), 3))
         a[:, 0], a[:, 1] = c, s
-        a[:, 2] = s * (x - centres[spanned, 0]) - c * (y - centres[spanned, 1])  # design.md's a
-        matrices[spanned] += k[:, None, None] * a[:, :, None] * a[:, None, :]
+        a[:, 2] = s * (x - centres[storey, 0]) - c * (y - centres[storey, 1])  # design.md's a
+        np.add.at(matrices, storey, k[:, None, None] * a[:, :, None] * a[:, None, :])
     return tuple(_storey_properties(matrix) for matrix in matrices)
 
 

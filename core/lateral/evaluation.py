@@ -8,7 +8,7 @@ its pattern scaled to a 1 kN base shear and then scaled by the base shear.
 
 from __future__ import annotations
 
-from collections.abc import Sequence
+from collections.abc import Callable, Iterator, Sequence
 from functools import lru_cache
 
 import numpy as np
@@ -45,15 +45,24 @@ from core.lateral.records import (
     StoreyLateral,
 )
 from core.model import BracedFrame, Element, Project
-from core.solve.assembly import FloorMass, element_matrix, element_storey_heights, element_transformation
+from core.solve.assembly import FloorMass, element_matrix, element_storey_heights
 from core.solve.modal import Mode
+
+ElementStiffnesses = Callable[[FloatArray], Sequence[FloatArray]]
+"""patterns (2, N) → each element's storey stiffness under its pattern (centres.element_pattern)."""
 
 
 def lateral_checks(
-    project: Project, floors: tuple[FloorMass, ...], K: FloatArray, modes: Sequence[Mode]
+    project: Project,
+    floors: tuple[FloorMass, ...],
+    K: FloatArray,
+    modes: Sequence[Mode],
+    element_stiffnesses: ElementStiffnesses | None = None,
+    element_matrices: Sequence[FloatArray] | None = None,
 ) -> LateralResults:
     """Centres, radii, static load cases, torsion ratios, drifts, element demands, regularity and
-    verdicts. ``K`` must have passed :func:`core.solve.diagnostics.check_stiffness`."""
+    verdicts. ``K`` must have passed :func:`core.solve.diagnostics.check_stiffness`. An analysis
+    session passes what it kept: ``element_stiffnesses`` and the elements' condensed matrices."""
     settings = project.settings
     n = len(floors)
     masses, centres = floor_arrays(floors)
@@ -99,7 +108,9 @@ def lateral_checks(
     storeys = _storeys(
         project,
         floors,
-        storey_stiffnesses(project, floors, patterns),
+        storey_stiffnesses(
+            project, floors, patterns, None if element_stiffnesses is None else element_stiffnesses(patterns)
+        ),
         no_twist_offsets(K, patterns),
         cases,
         storey_k,
@@ -108,10 +119,9 @@ def lateral_checks(
         drift_amplification(settings),
     )
     scales = np.array([loads[DIRECTIONS.index(r.case.direction)].base_shear for r in cases])
-    elements = tuple(
-        _element_demand(project, element, floors, unit[:, reported] * scales, cases)
-        for element in project.elements
-    )
+    matrices = element_matrices or [element_matrix(project, e) for e in project.elements]
+    displacements = unit[:, reported] * scales
+    elements = ElementDemands(lambda: element_demands(project, floors, matrices, displacements, cases))
     order = mode_order(modes)
     return LateralResults(
         rule_set=settings.rule_set.value,
@@ -207,19 +217,83 @@ def _ratio(numerator: float, denominator: float) -> float:
     return 0.0 if numerator == 0 else float("inf")
 
 
-def _element_demand(
+class ElementDemands(Sequence[ElementDemand]):
+    """The element demands of one analysis, computed for all elements together the first time a
+    view asks for any (a drag that shows none never pays for them)."""
+
+    def __init__(self, compute: Callable[[], tuple[ElementDemand, ...]]) -> None:
+        self._compute: Callable[[], tuple[ElementDemand, ...]] | None = compute
+        self._demands: tuple[ElementDemand, ...] | None = None
+
+    @property
+    def demands(self) -> tuple[ElementDemand, ...]:
+        if self._demands is None:
+            assert self._compute is not None
+            self._demands, self._compute = self._compute(), None
+        return self._demands
+
+    def __len__(self) -> int:
+        return len(self.demands)
+
+    def __getitem__(self, index):  # type: ignore[no-untyped-def, override]
+        return self.demands[index]
+
+    def __iter__(self) -> Iterator[ElementDemand]:
+        return iter(self.demands)
+
+    def __eq__(self, other: object) -> bool:
+        if isinstance(other, ElementDemands):
+            return self.demands == other.demands
+        return self.demands == other
+
+    __hash__ = None  # type: ignore[assignment]
+
+    def __repr__(self) -> str:
+        return f"ElementDemands({self.demands!r})"
+
+
+def element_demands(
     project: Project,
-    element: Element,
     floors: tuple[FloorMass, ...],
+    matrices: Sequence[FloatArray],
     displacements: FloatArray,
     cases: tuple[CaseResult, ...],
-) -> ElementDemand:
-    """Shears, shares, brace forces and base moment of one element over the reported cases.
+) -> tuple[ElementDemand, ...]:
+    """Shears, shares, brace forces and base moment of every element over the reported cases.
 
-    ``displacements`` is (3N, cases): the global response of each case."""
-    T = element_transformation(element, floors)
-    line = T @ displacements  # (storeys, cases) along the element's line, relative to its bottom
-    k = element_matrix(project, element)
+    ``displacements`` is (3N, cases): the global response of each case; ``matrices`` the elements'
+    condensed matrices. The displacements along every element's line on every floor it spans are
+    found in one batch; each element then costs one product with its matrix."""
+    if not project.elements:
+        return ()
+    counts = [e.storey_count for e in project.elements]
+    floor = np.concatenate([np.arange(e.bottom, e.top) for e in project.elements])
+    lines = np.repeat(np.array([(*e.direction, *e.start) for e in project.elements], dtype=float), counts, axis=0)
+    bottom = np.repeat([e.bottom - 1 for e in project.elements], counts)
+    centres = np.array([f.centre for f in floors], dtype=float)
+    u = displacements.reshape(len(floors), 3, -1)
+
+    def along(floors_at: FloatArray) -> FloatArray:
+        c, s, x, y = lines.T
+        a = np.column_stack([c, s, s * (x - centres[floors_at, 0]) - c * (y - centres[floors_at, 1])])
+        return np.einsum("rk,rkc->rc", a, u[floors_at])
+
+    line = along(floor)
+    above_base = bottom >= 0
+    if np.any(above_base):
+        line -= np.where(above_base[:, None], along(np.maximum(bottom, 0)), 0.0)
+    first = np.concatenate([[0], np.cumsum(counts)])
+    return tuple(
+        _element_demand(project, e, k, line[first[i] : first[i + 1]], cases)
+        for i, (e, k) in enumerate(zip(project.elements, matrices, strict=True))
+    )
+
+
+def _element_demand(
+    project: Project, element: Element, k: FloatArray, line: FloatArray, cases: tuple[CaseResult, ...]
+) -> ElementDemand:
+    """One element's demand from ``line`` (storeys, cases): its floors' displacements along its
+    line relative to its bottom."""
     floor_forces = k @ line
     shears = floor_forces[::-1].cumsum(axis=0)[::-1].T  # (cases, storeys)
     c, s = element.direction

@@ -9,6 +9,7 @@ comes from. All figures are concept-stage estimates.
 
 from __future__ import annotations
 
+from collections.abc import Sequence
 from dataclasses import dataclass
 from enum import StrEnum
 
@@ -252,7 +253,8 @@ class LateralResults:
     """The reported load cases: ±x and ±y each with ±e (eight), plus ±x and ±y centred if the
     project asks for them."""
     storeys: tuple[StoreyLateral, ...]
-    elements: tuple[ElementDemand, ...]
+    elements: Sequence[ElementDemand]
+    """One per element, in the project's order; built when first read."""
     mode_order: ModeOrder
     verdicts: tuple[Verdict, ...]
 

@@ -15,7 +15,7 @@ import numpy as np
 from core.arrays import FloatArray
 from core.elements import condensed_stiffness
 from core.errors import AnalysisError
-from core.model import GRAVITY, Element, Point, Project
+from core.model import GRAVITY, Element, Level, Point, Project
 from core.model.geometry import area_properties
 
 DOF_PER_FLOOR = 3
@@ -46,24 +46,28 @@ class FloorMass:
 
 def floor_masses(project: Project) -> tuple[FloorMass, ...]:
     """Mass, centre and rotational inertia of each floor from its outline and point masses."""
-    floors = []
-    for index, (level, elevation) in enumerate(zip(project.levels, project.elevations, strict=True), start=1):
-        props = area_properties(level.outline, level.openings)
-        density = level.seismic_weight / GRAVITY  # t/m²
-        slab_mass = density * props.area
-        masses = [slab_mass] + [p.mass for p in level.point_masses]
-        xs = [props.centroid[0]] + [p.position[0] for p in level.point_masses]
-        ys = [props.centroid[1]] + [p.position[1] for p in level.point_masses]
-        total = float(sum(masses))
-        if total <= 0.0:
-            floors.append(FloorMass(index, level.name, elevation, props.area, 0.0, props.centroid, 0.0))
-            continue
-        cx = float(np.dot(masses, xs) / total)
-        cy = float(np.dot(masses, ys) / total)
-        inertia = density * props.polar + slab_mass * ((props.centroid[0] - cx) ** 2 + (props.centroid[1] - cy) ** 2)
-        inertia += sum(p.mass * ((p.position[0] - cx) ** 2 + (p.position[1] - cy) ** 2) for p in level.point_masses)
-        floors.append(FloorMass(index, level.name, elevation, props.area, total, (cx, cy), float(inertia)))
-    return tuple(floors)
+    return tuple(
+        floor_mass(index, level, elevation)
+        for index, (level, elevation) in enumerate(zip(project.levels, project.elevations, strict=True), start=1)
+    )
+
+
+def floor_mass(index: int, level: Level, elevation: float) -> FloorMass:
+    """The :class:`FloorMass` of ``level``, the ``index``-th floor (1-based) at ``elevation``."""
+    props = area_properties(level.outline, level.openings)
+    density = level.seismic_weight / GRAVITY  # t/m²
+    slab_mass = density * props.area
+    masses = [slab_mass] + [p.mass for p in level.point_masses]
+    xs = [props.centroid[0]] + [p.position[0] for p in level.point_masses]
+    ys = [props.centroid[1]] + [p.position[1] for p in level.point_masses]
+    total = float(sum(masses))
+    if total <= 0.0:
+        return FloorMass(index, level.name, elevation, props.area, 0.0, props.centroid, 0.0)
+    cx = float(np.dot(masses, xs) / total)
+    cy = float(np.dot(masses, ys) / total)
+    inertia = density * props.polar + slab_mass * ((props.centroid[0] - cx) ** 2 + (props.centroid[1] - cy) ** 2)
+    inertia += sum(p.mass * ((p.position[0] - cx) ** 2 + (p.position[1] - cy) ** 2) for p in level.point_masses)
+    return FloorMass(index, level.name, elevation, props.area, total, (cx, cy), float(inertia))
 
 
 def line_vector(element: Element, floor: FloorMass) -> FloatArray:
@@ -100,13 +104,45 @@ def element_matrix(project: Project, element: Element) -> FloatArray:
     return condensed_stiffness(element.properties, element.length, element_storey_heights(project, element))
 
 
+def element_floors(element: Element) -> range:
+    """0-based indices of the floors an element connects: its bottom floor (if above the base)
+    and every floor it spans; their DOFs are contiguous in K."""
+    return range(max(element.bottom - 1, 0), element.top)
+
+
+def element_block(element: Element, k: FloatArray, centres: FloatArray) -> FloatArray:
+    """The element's Tᵀ k T restricted to the DOFs of :func:`element_floors`, (3m × 3m).
+
+    ``centres`` (m, 2) are the mass centres of those floors. With the line rows a_p of the floors
+    and k̂ = Lᵀ k L (L = [−1 | I] takes the bottom floor's displacement off), the block is
+    k̂_pq·a_p a_qᵀ: no dense T is formed."""
+    c, s = element.direction
+    x, y = element.start
+    a = np.empty((len(centres), 3))
+    a[:, 0], a[:, 1] = c, s
+    a[:, 2] = s * (x - centres[:, 0]) - c * (y - centres[:, 1])
+    if element.bottom > 0:
+        n = k.shape[0]
+        k_hat = np.empty((n + 1, n + 1))
+        k_hat[1:, 1:] = k
+        k_hat[1:, 0] = -k.sum(axis=1)
+        k_hat[0, 1:] = -k.sum(axis=0)
+        k_hat[0, 0] = k.sum()
+    else:
+        k_hat = k
+    m = len(centres)
+    return (k_hat[:, None, :, None] * a[:, :, None, None] * a[None, None, :, :]).reshape(3 * m, 3 * m)
+
+
 def assemble_stiffness(project: Project, floors: tuple[FloorMass, ...]) -> FloatArray:
     """Global lateral stiffness K = Σ Tᵀ k_e T, 3N × 3N."""
     size = DOF_PER_FLOOR * len(floors)
     K = np.zeros((size, size))
+    centres = np.array([f.centre for f in floors], dtype=float).reshape(-1, 2)
     for element in project.elements:
-        T = element_transformation(element, floors)
-        K += T.T @ element_matrix(project, element) @ T
+        spanned = element_floors(element)
+        dofs = slice(DOF_PER_FLOOR * spanned.start, DOF_PER_FLOOR * spanned.stop)
+        K[dofs, dofs] += element_block(element, element_matrix(project, element), centres[spanned.start : spanned.stop])
     return (K + K.T) / 2
 
 

@@ -18,12 +18,12 @@ from collections.abc import Sequence
 
 import numpy as np
 import shapely
-from scipy.linalg import eigh
 
 from core.arrays import FloatArray
 from core.errors import AnalysisError
 from core.model import Element, Level, Project
 from core.solve.assembly import FloorMass, element_transformation
+from core.solve.modal import ScaledEigen, scaled_eigen
 
 ZERO_LENGTH = 1e-6
 """Element lines shorter than this, m, have no direction."""
@@ -38,37 +38,96 @@ ILL_CONDITIONED = 1e-9
 3·10⁴ (our own bound; real buildings stay below 10³)."""
 
 
-def check_layout(project: Project) -> None:
+class LayoutMemo:
+    """What the layout checks learnt about a sequence of related projects: the prepared outline
+    regions, and which element lines were found inside their floors. An analysis session keeps
+    one, so a move re-checks only the moved element. Bounded: cleared when it grows large."""
+
+    LIMIT = 20_000
+
+    def __init__(self) -> None:
+        self.regions: dict[tuple[tuple[float, float], ...], tuple[int, shapely.Polygon]] = {}
+        self.inside: set[tuple[object, ...]] = set()
+
+    def region(self, level: Level) -> tuple[int, shapely.Polygon]:
+        """(a number naming the outline, its region grown by a hair) for ``level``."""
+        found = self.regions.get(level.outline)
+        if found is None:
+            if len(self.regions) > self.LIMIT:
+                self.regions.clear()
+                self.inside.clear()
+            # Grown by a hair, so that a line on the outline's edge counts as inside.
+            region = shapely.Polygon(level.outline).buffer(1e-6 * _plan_size(level) + 1e-9)
+            shapely.prepare(region)
+            found = (len(self.regions), region)
+            self.regions[level.outline] = found
+        return found
+
+
+def check_layout(project: Project, memo: LayoutMemo | None = None) -> None:
     """Raise AnalysisError for a layout that cannot stand: zero-length elements, elements off
-    their floors' outlines, storeys without elements, all-parallel or concurrent storeys."""
+    their floors' outlines, storeys without elements, all-parallel or concurrent storeys.
+    ``memo`` carries what earlier checks of related projects found."""
     if not project.levels:
         raise AnalysisError("the project has no levels: draw a floor outline first")
     _zero_length(project)
-    _outside_outline(project)
-    checked: set[tuple[tuple[str, ...], float]] = set()
-    for storey in range(1, len(project.levels) + 1):
+    _outside_outline(project, memo or LayoutMemo())
+    n = len(project.levels)
+    members: list[list[int]] = [[] for _ in range(n + 1)]
+    for i, element in enumerate(project.elements):
+        for storey in range(element.bottom + 1, element.top + 1):
+            members[storey].append(i)
+    directions = np.array([e.direction for e in project.elements], dtype=float).reshape(-1, 2)
+    starts = np.array([e.start for e in project.elements], dtype=float).reshape(-1, 2)
+    checked: set[tuple[tuple[int, ...], float]] = set()
+    for storey in range(1, n + 1):
         # Storeys with the same elements and plan size give the same answer: check each set once.
-        ids = tuple(e.id for e in project.elements_in_storey(storey))
-        key = (ids, _plan_size(project.levels[storey - 1]))
-        if key not in checked:
+        level = project.levels[storey - 1]
+        key = (tuple(members[storey]), _plan_size(level))
+        if key in checked:
+            continue
+        if not _clearly_stable(directions[members[storey]], starts[members[storey]], level):
             _storey_layout(project, storey)
-            checked.add(key)
+        checked.add(key)
 
 
-def check_stiffness(project: Project, floors: Sequence[FloorMass], K: FloatArray) -> None:
+def _clearly_stable(directions: FloatArray, starts: FloatArray, level: Level) -> bool:
+    """True when the element lines are far from all parallel and far from meeting in one point.
+
+    Each line is a row [n, −n·p/size] (n its normal, p a point on it relative to the outline's
+    middle). Lines all parallel to d, or all through a point P, leave a vector ([d, 0] or
+    [P/size, 1], length ≥ 1) that every row nearly misses (by ≤ the tolerances of
+    :func:`_storey_layout`), so the rows' Gram matrix then has an eigenvalue ≤ count·10⁻¹². A
+    smallest eigenvalue far above that proves the storey stands, and the exact check is skipped."""
+    count = len(directions)
+    if count < 3:
+        return False
+    points = np.asarray(level.outline, dtype=float)
+    middle = (points.min(axis=0) + points.max(axis=0)) / 2
+    size = max(_plan_size(level), 1e-9)
+    normals = np.column_stack([-directions[:, 1], directions[:, 0]])
+    rows = np.column_stack([normals, -np.einsum("ij,ij->i", normals, starts - middle) / size])
+    smallest = float(np.linalg.eigvalsh(rows.T @ rows)[0])
+    return smallest > 1e-8 * count
+
+
+def check_stiffness(
+    project: Project, floors: Sequence[FloorMass], K: FloatArray, eigen: ScaledEigen | None = None
+) -> None:
     """Raise AnalysisError if K is not finite, singular or ill-conditioned, saying which levels
     move how in the (near) mechanism and which elements span the storeys that deform.
 
     The measure is physical: ω² = eigenvalues of M^(-1/2) K M^(-1/2), so "ill-conditioned" means
     a longest period absurdly long beside the shortest. Floors without mass are left to the modal
-    analysis, which names them."""
+    analysis, which names them. ``eigen`` is the modal analysis's solution of this K, if at hand."""
     if not np.all(np.isfinite(K)):
         raise AnalysisError("the lateral stiffness has non-finite entries: check the element properties")
     mass = np.array([v for f in floors for v in (f.mass, f.mass, f.inertia)])
     if np.any(mass <= 0.0):
         return
-    scale = 1.0 / np.sqrt(mass)
-    values, vectors = eigh(K * scale[:, None] * scale[None, :])
+    if eigen is None:
+        eigen = scaled_eigen(K, mass)
+    values, vectors, scale = eigen.values, eigen.vectors, eigen.scale
     largest = max(float(values[-1]), 1e-300)
     ratio = float(values[0]) / largest
     if ratio <= SINGULAR:
@@ -102,23 +161,21 @@ def _zero_length(project: Project) -> None:
         )
 
 
-def _outside_outline(project: Project) -> None:
-    by_outline: dict[tuple[tuple[float, float], ...], shapely.Polygon] = {}
-    regions = []
-    for level in project.levels:
-        if level.outline not in by_outline:
-            # Grown by a hair, so that a line on the outline's edge counts as inside.
-            region = shapely.Polygon(level.outline).buffer(1e-6 * _plan_size(level) + 1e-9)
-            shapely.prepare(region)
-            by_outline[level.outline] = region
-        regions.append(by_outline[level.outline])
+def _outside_outline(project: Project, memo: LayoutMemo) -> None:
+    numbered = [memo.region(level) for level in project.levels]
+    codes = tuple(number for number, _ in numbered)
     bad: list[tuple[Element, int]] = []
     for element in project.elements:
-        line = shapely.LineString([element.start, element.end])
         first = max(element.bottom, 1)  # the floors it connects: its bottom floor (if any) and those it spans
-        for level in range(first, element.top + 1):
-            if not regions[level - 1].covers(line):
-                bad.append((element, level))
+        key = (element.start, element.end, first, element.top, codes[first - 1 : element.top])
+        if key in memo.inside:
+            continue
+        line = shapely.LineString([element.start, element.end])
+        outside = [level for level in range(first, element.top + 1) if not numbered[level - 1][1].covers(line)]
+        if outside:
+            bad.extend((element, level) for level in outside)
+        else:
+            memo.inside.add(key)
     if bad:
         parts = [f"element {e.id} leaves the outline of level {project.levels[j - 1].name!r}" for e, j in bad]
         raise AnalysisError(

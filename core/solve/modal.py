@@ -86,8 +86,31 @@ def influence_vectors(floors: tuple[FloorMass, ...]) -> FloatArray:
     return iota
 
 
-def modal_analysis(K: FloatArray, M: FloatArray, floors: tuple[FloorMass, ...]) -> tuple[Mode, ...]:
-    """All modes, longest period first, with participation, mass ratios and energy shares."""
+@dataclass(frozen=True)
+class ScaledEigen:
+    """The eigen-solution of M^(-1/2) K M^(-1/2): solved once per analysis, shared by the
+    stiffness diagnostics and the modal analysis."""
+
+    values: FloatArray
+    """ω², ascending."""
+    vectors: FloatArray
+    """Orthonormal eigenvectors v (columns); φ = M^(-1/2) v."""
+    scale: FloatArray
+    """M^(-1/2) as a vector."""
+
+
+def scaled_eigen(K: FloatArray, mass: FloatArray) -> ScaledEigen:
+    """Eigenvalues and vectors of M^(-1/2) K M^(-1/2) for the diagonal of M, ``mass`` (all > 0)."""
+    scale = 1.0 / np.sqrt(mass)
+    values, vectors = eigh(K * scale[:, None] * scale[None, :])
+    return ScaledEigen(values, vectors, scale)
+
+
+def modal_analysis(
+    K: FloatArray, M: FloatArray, floors: tuple[FloorMass, ...], eigen: ScaledEigen | None = None
+) -> tuple[Mode, ...]:
+    """All modes, longest period first, with participation, mass ratios and energy shares.
+    ``eigen`` is the solution of this K and M if already computed."""
     m = np.diag(M).copy()
     if np.any(m <= 0.0):
         bad = sorted({floors[i // 3].name for i in np.flatnonzero(m <= 0.0)})
@@ -95,18 +118,16 @@ def modal_analysis(K: FloatArray, M: FloatArray, floors: tuple[FloorMass, ...]) 
             f"level {', '.join(bad)} has no mass: give it a seismic weight or a point mass",
             levels=tuple(floors[i // 3].level for i in np.flatnonzero(m <= 0.0)),
         )
-    scale = 1.0 / np.sqrt(m)
-    A = K * scale[:, None] * scale[None, :]
-    eigenvalues, vectors = eigh(A)
+    if eigen is None:
+        eigen = scaled_eigen(K, m)
+    eigenvalues, vectors, scale = eigen.values, eigen.vectors, eigen.scale
     largest = max(abs(eigenvalues[-1]), 1e-300)
     if eigenvalues[0] <= SINGULAR_TOLERANCE * largest:
         raise AnalysisError("the lateral stiffness is singular: some floor can move without resistance")
     phi = vectors * scale[:, None]
     # A deterministic sign: the largest component of each mode is positive.
-    for j in range(phi.shape[1]):
-        k = int(np.argmax(np.abs(phi[:, j])))
-        if phi[k, j] < 0:
-            phi[:, j] = -phi[:, j]
+    peak = np.argmax(np.abs(phi), axis=0)
+    phi = np.where(phi[peak, np.arange(phi.shape[1])] < 0, -phi, phi)
 
     iota = influence_vectors(floors)
     totals = np.einsum("ri,i,ri->r", iota, m, iota)
