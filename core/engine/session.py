@@ -65,6 +65,9 @@ class _Kept:
     block: FloatArray
     pattern: FloatArray | None = None
     storey_stiffness: FloatArray | None = None
+    """Storey shear over drift under ``pattern`` (core.lateral.centres.element_storey_stiffness)."""
+    stamp: int = -1
+    """The session's pattern stamp when ``storey_stiffness`` was last confirmed."""
 
 
 class AnalysisSession:
@@ -80,6 +83,8 @@ class AnalysisSession:
         self._updates = 0
         self._layout = LayoutMemo()
         self._floors_before: tuple[FloorMass, ...] = ()
+        self._patterns: FloatArray | None = None
+        self._stamp = 0
 
     def analyse(self, project: Project) -> Results:
         """Masses, stiffness and modes of ``project``; raises AnalysisError if it cannot stand."""
@@ -102,12 +107,16 @@ class AnalysisSession:
         modes = modal_analysis(K, M, floors, eigen)
 
         def storey_stiffnesses(patterns: FloatArray) -> list[FloatArray]:
+            if self._patterns is None or not np.array_equal(self._patterns, patterns):
+                self._patterns, self._stamp = patterns, self._stamp + 1
             out = []
             for entry in kept:
-                pattern = element_pattern(entry.element, patterns)
-                if entry.pattern is None or not np.array_equal(entry.pattern, pattern):
-                    entry.pattern = pattern
-                    entry.storey_stiffness = element_storey_stiffness(entry.matrix, pattern)
+                if entry.stamp != self._stamp:
+                    pattern = element_pattern(entry.element, patterns)
+                    if entry.pattern is None or not np.array_equal(entry.pattern, pattern):
+                        entry.pattern = pattern
+                        entry.storey_stiffness = element_storey_stiffness(entry.matrix, pattern)
+                    entry.stamp = self._stamp
                 assert entry.storey_stiffness is not None
                 out.append(entry.storey_stiffness)
             return out

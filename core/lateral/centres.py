@@ -92,23 +92,34 @@ def storey_stiffnesses(
         a[:, 0], a[:, 1] = c, s
         a[:, 2] = s * (x - centres[storey, 0]) - c * (y - centres[storey, 1])  # design.md's a
         np.add.at(matrices, storey, k[:, None, None] * a[:, :, None] * a[:, None, :])
-    return tuple(_storey_properties(matrix) for matrix in matrices)
+    return storey_properties(matrices)
 
 
-def _storey_properties(matrix: FloatArray) -> StoreyStiffness:
-    translational = matrix[:2, :2]
-    coupling = matrix[:2, 2]
-    scale = max(float(np.abs(translational).max()), 1e-300)
-    determinant = float(np.linalg.det(translational / scale))
-    if determinant <= RELATIVE_TOLERANCE:
-        return StoreyStiffness(matrix, None, 0.0, (0.0, 0.0))
-    minus_y_x = np.linalg.solve(translational, coupling)  # [−y_r, x_r] about the mass centre
-    offset = (float(minus_y_x[1]), float(-minus_y_x[0]))
-    k_theta = float(matrix[2, 2] - coupling @ minus_y_x)
-    k_theta = max(k_theta, 0.0)
-    r_x = float(np.sqrt(k_theta / translational[1, 1]))
-    r_y = float(np.sqrt(k_theta / translational[0, 0]))
-    return StoreyStiffness(matrix, offset, k_theta, (r_x, r_y))
+def storey_properties(matrices: FloatArray) -> tuple[StoreyStiffness, ...]:
+    """Centre, torsional stiffness and radii of each storey from its 3 × 3 matrix (N, 3, 3), all
+    storeys at once. A storey whose translational part is singular (relative determinant at or
+    below RELATIVE_TOLERANCE) has no centre."""
+    translational = matrices[:, :2, :2]
+    coupling = matrices[:, :2, 2]
+    scale = np.maximum(np.abs(translational).max(axis=(1, 2)), 1e-300)
+    determinant = np.linalg.det(translational / scale[:, None, None]) if len(matrices) else np.zeros(0)
+    stands = determinant > RELATIVE_TOLERANCE
+    minus_y_x = np.zeros((len(matrices), 2))  # [−y_r, x_r] about the mass centre
+    if np.any(stands):
+        minus_y_x[stands] = np.linalg.solve(translational[stands], coupling[stands][:, :, None])[:, :, 0]
+    k_theta = np.maximum(matrices[:, 2, 2] - np.einsum("ij,ij->i", coupling, minus_y_x), 0.0)
+    with np.errstate(divide="ignore", invalid="ignore"):
+        r_x = np.sqrt(k_theta / translational[:, 1, 1])
+        r_y = np.sqrt(k_theta / translational[:, 0, 0])
+    out = []
+    for j, (ok, (y, x), k, rx, ry) in enumerate(
+        zip(stands.tolist(), minus_y_x.tolist(), k_theta.tolist(), r_x.tolist(), r_y.tolist(), strict=True)
+    ):
+        if ok:
+            out.append(StoreyStiffness(matrices[j], (x, -y), k, (rx, ry)))
+        else:
+            out.append(StoreyStiffness(matrices[j], None, 0.0, (0.0, 0.0)))
+    return tuple(out)
 
 
 def no_twist_offsets(K: FloatArray, patterns: FloatArray) -> FloatArray:

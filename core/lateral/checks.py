@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import math
 from collections.abc import Sequence
+from functools import lru_cache
 
 import numpy as np
 
@@ -24,7 +25,7 @@ from core.lateral.records import (
     StoreyLateral,
     Verdict,
 )
-from core.model import LoadMethod, Project, RuleSet, Settings
+from core.model import LoadMethod, Point, Project, Ring, RuleSet, Settings
 from core.solve.assembly import FloorMass
 from core.solve.modal import Mode
 
@@ -93,19 +94,26 @@ def extreme_points(project: Project, direction: Direction) -> FloatArray:
     and highest y for x loads, lowest and highest x for y loads. Drift along the load is linear
     across it, so these are the two ends of ASCE 7 Table 12.3-1."""
     axis = 1 if direction == "x" else 0
-    out = np.zeros((len(project.levels), 2, 2))
-    for j, level in enumerate(project.levels):
-        ring = np.asarray(level.outline, dtype=float)
-        out[j, 0] = ring[int(np.argmin(ring[:, axis]))]
-        out[j, 1] = ring[int(np.argmax(ring[:, axis]))]
-    return out
+    return np.array([_extremes(level.outline, axis) for level in project.levels], dtype=float).reshape(-1, 2, 2)
+
+
+@lru_cache(maxsize=4096)
+def _extremes(outline: Ring, axis: int) -> tuple[Point, Point]:
+    """The outline vertices with the lowest and the highest coordinate ``axis`` (kept per outline:
+    a drag leaves the outlines alone)."""
+    ring = np.asarray(outline, dtype=float)
+    return outline[int(np.argmin(ring[:, axis]))], outline[int(np.argmax(ring[:, axis]))]
 
 
 def outline_vertices(project: Project) -> FloatArray:
     """(N, P, 2) every level's outline vertices, padded by repeating the last one to a common P."""
-    rings = [np.asarray(level.outline, dtype=float) for level in project.levels]
-    count = max(len(r) for r in rings)
-    return np.stack([np.vstack([r, np.repeat(r[-1:], count - len(r), axis=0)]) for r in rings])
+    count = max(len(level.outline) for level in project.levels)
+    return np.array([_padded(level.outline, count) for level in project.levels], dtype=float)
+
+
+@lru_cache(maxsize=4096)
+def _padded(outline: Ring, count: int) -> Ring:
+    return outline + (outline[-1],) * (count - len(outline))
 
 
 def end_ratio(ends: FloatArray) -> FloatArray:
@@ -199,13 +207,12 @@ def stiffness_ratios(stiffness: FloatArray) -> tuple[FloatArray, FloatArray]:
     n = len(stiffness)
     above = np.full(n, np.nan)
     average = np.full(n, np.nan)
-    for j in range(n - 1):
-        if stiffness[j + 1] > 0:
-            above[j] = stiffness[j] / stiffness[j + 1]
-        if j + 3 < n:
-            mean = stiffness[j + 1 : j + 4].mean()
-            if mean > 0:
-                average[j] = stiffness[j] / mean
+    with np.errstate(divide="ignore", invalid="ignore"):
+        upper = stiffness[1:]
+        above[:-1] = np.where(upper > 0, stiffness[:-1] / upper, np.nan)
+        if n > 3:
+            mean = (stiffness[1:-2] + stiffness[2:-1] + stiffness[3:]) / 3
+            average[: n - 3] = np.where(mean > 0, stiffness[: n - 3] / mean, np.nan)
     return above, average
 
 
@@ -237,7 +244,7 @@ def mode_order(modes: Sequence[Mode]) -> ModeOrder:
     """Where the first rotation-dominated mode falls (dominant = largest kinetic energy share)."""
     firsts: list[int | None] = [None, None, None]
     for mode in modes:
-        k = int(np.argmax(mode.shares))
+        k = max(range(3), key=mode.shares.__getitem__)  # the first largest, as argmax
         if firsts[k] is None:
             firsts[k] = mode.number
     first_x, first_y, first_torsion = firsts

@@ -166,7 +166,26 @@ def _storeys(
 ) -> tuple[StoreyLateral, ...]:
     drift = {d: design_drift_ratios(cases, heights, d, amplification) for d in DIRECTIONS}
     ratios = {d: stiffness_ratios(storey_k[:, i]) for i, d in enumerate(DIRECTIONS)}
-    mass = mass_ratios(masses)
+    mass = mass_ratios(masses).tolist()
+    worst = {
+        name: np.column_stack(
+            [
+                np.max([getattr(c, name) for c in cases if c.case.direction == d], axis=0)
+                if any(c.case.direction == d for c in cases)
+                else np.ones(len(floors))
+                for d in DIRECTIONS
+            ]
+        ).tolist()
+        for name in ("torsion_ratio", "amplification")
+    }
+    drift_ratio = np.column_stack([drift["x"][0], drift["y"][0]]).tolist()
+    corner_ratio = np.column_stack([drift["x"][1], drift["y"][1]]).tolist()
+    above = np.column_stack([ratios["x"][0], ratios["y"][0]]).tolist()
+    average = np.column_stack([ratios["x"][1], ratios["y"][1]]).tolist()
+    stiffness = storey_k.tolist()
+    twists = no_twist.tolist()
+    twist_known = (~np.any(np.isnan(no_twist), axis=1)).tolist()
+    twist_values = np.nan_to_num(no_twist).tolist()
     out = []
     for j, floor in enumerate(floors):
         a = rigidity[j]
@@ -174,8 +193,7 @@ def _storeys(
         ecc = a.centre if a.centre is not None else (0.0, 0.0)
         r_x, r_y = a.torsional_radius
         l_s = floor.radius_of_gyration
-        twist = no_twist[j]
-        by_direction = {d: [c for c in cases if c.case.direction == d] for d in DIRECTIONS}
+        twist = twists[j]
         out.append(
             StoreyLateral(
                 storey=j + 1,
@@ -183,29 +201,23 @@ def _storeys(
                 height=float(heights[j]),
                 mass_centre=(cx, cy),
                 rigidity_centre=None if a.centre is None else (cx + ecc[0], cy + ecc[1]),
-                no_twist_centre=None
-                if np.any(np.isnan(twist))
-                else (cx + float(twist[0]), cy + float(twist[1])),
+                no_twist_centre=(cx + twist[0], cy + twist[1]) if twist_known[j] else None,
                 eccentricity=(float(ecc[0]), float(ecc[1])),
-                no_twist_eccentricity=(float(np.nan_to_num(twist[0])), float(np.nan_to_num(twist[1]))),
+                no_twist_eccentricity=(twist_values[j][0], twist_values[j][1]),
                 lateral_stiffness=(float(a.matrix[0, 0]), float(a.matrix[1, 1])),
                 torsional_stiffness=a.torsional_stiffness,
                 torsional_radius=(r_x, r_y),
                 radius_of_gyration=l_s,
                 eccentricity_ratio=(_ratio(abs(ecc[0]), r_x), _ratio(abs(ecc[1]), r_y)),
                 radius_ratio=(_ratio(r_x, l_s), _ratio(r_y, l_s)),
-                torsion_ratio=tuple(  # type: ignore[arg-type]
-                    max((float(c.torsion_ratio[j]) for c in by_direction[d]), default=1.0) for d in DIRECTIONS
-                ),
-                amplification=tuple(  # type: ignore[arg-type]
-                    max((float(c.amplification[j]) for c in by_direction[d]), default=1.0) for d in DIRECTIONS
-                ),
-                drift_ratio=(float(drift["x"][0][j]), float(drift["y"][0][j])),
-                corner_drift_ratio=(float(drift["x"][1][j]), float(drift["y"][1][j])),
-                storey_stiffness=(float(storey_k[j, 0]), float(storey_k[j, 1])),
-                stiffness_ratio_above=(float(ratios["x"][0][j]), float(ratios["y"][0][j])),
-                stiffness_ratio_average=(float(ratios["x"][1][j]), float(ratios["y"][1][j])),
-                mass_ratio=(float(mass[j, 0]), float(mass[j, 1])),
+                torsion_ratio=(worst["torsion_ratio"][j][0], worst["torsion_ratio"][j][1]),
+                amplification=(worst["amplification"][j][0], worst["amplification"][j][1]),
+                drift_ratio=(drift_ratio[j][0], drift_ratio[j][1]),
+                corner_drift_ratio=(corner_ratio[j][0], corner_ratio[j][1]),
+                storey_stiffness=(stiffness[j][0], stiffness[j][1]),
+                stiffness_ratio_above=(above[j][0], above[j][1]),
+                stiffness_ratio_average=(average[j][0], average[j][1]),
+                mass_ratio=(mass[j][0], mass[j][1]),
             )
         )
     return tuple(out)

@@ -7,6 +7,7 @@ I_p = A(a² + b²)/12 about its centroid to rounding.
 from __future__ import annotations
 
 from dataclasses import dataclass
+from functools import lru_cache
 
 import numpy as np
 
@@ -60,7 +61,8 @@ def area_properties(outline: Ring, openings: tuple[Ring, ...] = ()) -> AreaPrope
     )
 
 
+@lru_cache(maxsize=4096)
 def bounding_size(outline: Ring) -> tuple[float, float]:
-    """Plan dimensions (L_x, L_y) of the outline's bounding box, m."""
+    """Plan dimensions (L_x, L_y) of the outline's bounding box, m (kept per outline)."""
     p = np.asarray(outline, dtype=float)
     return float(np.ptp(p[:, 0])), float(np.ptp(p[:, 1]))

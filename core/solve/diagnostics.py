@@ -22,6 +22,7 @@ import shapely
 from core.arrays import FloatArray
 from core.errors import AnalysisError
 from core.model import Element, Level, Project
+from core.model.geometry import bounding_size
 from core.solve.assembly import FloorMass, element_transformation
 from core.solve.modal import ScaledEigen, scaled_eigen
 
@@ -73,20 +74,20 @@ def check_layout(project: Project, memo: LayoutMemo | None = None) -> None:
     _zero_length(project)
     _outside_outline(project, memo or LayoutMemo())
     n = len(project.levels)
-    members: list[list[int]] = [[] for _ in range(n + 1)]
-    for i, element in enumerate(project.elements):
-        for storey in range(element.bottom + 1, element.top + 1):
-            members[storey].append(i)
+    spans = np.array([(e.bottom, e.top) for e in project.elements], dtype=int).reshape(-1, 2)
+    storeys = np.arange(1, n + 1)[:, None]
+    members = (spans[:, 0] < storeys) & (storeys <= spans[:, 1])  # (storeys, elements)
     directions = np.array([e.direction for e in project.elements], dtype=float).reshape(-1, 2)
     starts = np.array([e.start for e in project.elements], dtype=float).reshape(-1, 2)
-    checked: set[tuple[tuple[int, ...], float]] = set()
+    checked: set[tuple[bytes, float]] = set()
     for storey in range(1, n + 1):
         # Storeys with the same elements and plan size give the same answer: check each set once.
         level = project.levels[storey - 1]
-        key = (tuple(members[storey]), _plan_size(level))
+        key = (members[storey - 1].tobytes(), _plan_size(level))
         if key in checked:
             continue
-        if not _clearly_stable(directions[members[storey]], starts[members[storey]], level):
+        inside = members[storey - 1]
+        if not _clearly_stable(directions[inside], starts[inside], level):
             _storey_layout(project, storey)
         checked.add(key)
 
@@ -229,8 +230,7 @@ def _storey_layout(project: Project, storey: int) -> None:
 
 def _plan_size(level: Level) -> float:
     """Diagonal of the outline's bounding box, m: the length tolerances are relative to it."""
-    points = np.asarray(level.outline, dtype=float)
-    return float(np.hypot(*np.ptp(points, axis=0)))
+    return math.hypot(*bounding_size(level.outline))
 
 
 def _common_point(elements: Sequence[Element], size: float) -> FloatArray | None:

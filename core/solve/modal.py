@@ -14,7 +14,7 @@ from enum import StrEnum
 import numpy as np
 from scipy.linalg import eigh
 
-from core.arrays import FloatArray, frozen_array
+from core.arrays import FloatArray
 from core.errors import AnalysisError
 from core.solve.assembly import FloorMass
 
@@ -137,21 +137,18 @@ def modal_analysis(
     energy = phi**2 * m[:, None]  # (3N, modes); columns sum to 1
     shares = np.stack([energy[0::3].sum(axis=0), energy[1::3].sum(axis=0), energy[2::3].sum(axis=0)], axis=1)
 
-    modes = []
-    for j in range(phi.shape[1]):
-        modes.append(
-            Mode(
-                number=j + 1,
-                omega=float(np.sqrt(eigenvalues[j])),
-                shape=frozen_array(phi[:, j].reshape(-1, 3)),
-                participation=_triple(gammas[j]),
-                mass_ratio=_triple(ratios[j]),
-                cumulative=_triple(cumulative[j]),
-                shares=_triple(shares[j]),
+    shapes = np.ascontiguousarray(phi.T).reshape(phi.shape[1], -1, 3)
+    shapes.setflags(write=False)  # each mode's shape is a read-only view of this
+    return tuple(
+        Mode(number=j + 1, omega=omega, shape=shapes[j], participation=g, mass_ratio=r, cumulative=c, shares=e)
+        for j, (omega, g, r, c, e) in enumerate(
+            zip(
+                np.sqrt(eigenvalues).tolist(),
+                map(tuple, gammas.tolist()),
+                map(tuple, ratios.tolist()),
+                map(tuple, cumulative.tolist()),
+                map(tuple, shares.tolist()),
+                strict=True,
             )
         )
-    return tuple(modes)
-
-
-def _triple(values: FloatArray) -> tuple[float, float, float]:
-    return (float(values[0]), float(values[1]), float(values[2]))
+    )
