@@ -51,7 +51,7 @@ REBUILD_EVERY = 64
 
 
 @dataclass
-class _Kept:
+class KeptElement:
     """What the session keeps of one element."""
 
     element: Element
@@ -77,7 +77,7 @@ class AnalysisSession:
         self._lock = threading.Lock()
         self._levels: tuple[Level, ...] = ()
         self._floors: tuple[FloorMass, ...] = ()
-        self._kept: dict[str, _Kept] = {}
+        self._kept: dict[str, KeptElement] = {}
         self._K: FloatArray = np.zeros((0, 0))
         self._order: tuple[str, ...] = ()
         self._updates = 0
@@ -90,6 +90,12 @@ class AnalysisSession:
         """Masses, stiffness and modes of ``project``; raises AnalysisError if it cannot stand."""
         with self._lock, one_blas_thread():
             return self._analyse(project)
+
+    def analyse_keeping(self, project: Project) -> tuple[Results, list[KeptElement]]:
+        """:meth:`analyse`, and what the session keeps of each element (for the what-if)."""
+        with self._lock, one_blas_thread():
+            results = self._analyse(project)
+            return results, [self._kept[e.id] for e in project.elements]
 
     def _analyse(self, project: Project) -> Results:
         if not project.levels:
@@ -140,7 +146,7 @@ class AnalysisSession:
 
     def _element(
         self, project: Project, element: Element, floors: tuple[FloorMass, ...], moved: FloatArray | None
-    ) -> _Kept:
+    ) -> KeptElement:
         """The kept entry of ``element``, made anew if the element or its floors changed.
 
         ``moved`` counts, cumulatively by floor, the floors whose centre or storey height changed
@@ -169,9 +175,9 @@ class AnalysisSession:
         else:
             pattern = stiffness = None
         block = element_block(element, matrix, centres)
-        return _Kept(element, spanned, centres, heights, matrix, block, pattern, stiffness)
+        return KeptElement(element, spanned, centres, heights, matrix, block, pattern, stiffness)
 
-    def _stiffness(self, project: Project, floors: tuple[FloorMass, ...], kept: list[_Kept]) -> FloatArray:
+    def _stiffness(self, project: Project, floors: tuple[FloorMass, ...], kept: list[KeptElement]) -> FloatArray:
         """K from the kept blocks: updated by the changed ones, or rebuilt."""
         size = DOF_PER_FLOOR * len(floors)
         order = tuple(e.id for e in project.elements)

@@ -76,8 +76,7 @@ def storey_stiffnesses(
     :func:`element_pattern` if the caller kept them from an earlier, equal pattern."""
     if element_stiffness is None:
         element_stiffness = [
-            element_storey_stiffness(element_matrix(project, e), element_pattern(e, patterns))
-            for e in project.elements
+            element_storey_stiffness(element_matrix(project, e), element_pattern(e, patterns)) for e in project.elements
         ]
     centres = np.array([f.centre for f in floors], dtype=float).reshape(-1, 2)
     matrices = np.zeros((len(floors), 3, 3))
@@ -97,29 +96,44 @@ def storey_stiffnesses(
 
 def storey_properties(matrices: FloatArray) -> tuple[StoreyStiffness, ...]:
     """Centre, torsional stiffness and radii of each storey from its 3 × 3 matrix (N, 3, 3), all
-    storeys at once. A storey whose translational part is singular (relative determinant at or
-    below RELATIVE_TOLERANCE) has no centre."""
-    translational = matrices[:, :2, :2]
-    coupling = matrices[:, :2, 2]
-    scale = np.maximum(np.abs(translational).max(axis=(1, 2)), 1e-300)
-    determinant = np.linalg.det(translational / scale[:, None, None]) if len(matrices) else np.zeros(0)
-    stands = determinant > RELATIVE_TOLERANCE
-    minus_y_x = np.zeros((len(matrices), 2))  # [−y_r, x_r] about the mass centre
-    if np.any(stands):
-        minus_y_x[stands] = np.linalg.solve(translational[stands], coupling[stands][:, :, None])[:, :, 0]
-    k_theta = np.maximum(matrices[:, 2, 2] - np.einsum("ij,ij->i", coupling, minus_y_x), 0.0)
-    with np.errstate(divide="ignore", invalid="ignore"):
-        r_x = np.sqrt(k_theta / translational[:, 1, 1])
-        r_y = np.sqrt(k_theta / translational[:, 0, 0])
+    storeys at once (:func:`storey_property_arrays`)."""
+    stands, offsets, k_theta, radii = storey_property_arrays(matrices)
     out = []
-    for j, (ok, (y, x), k, rx, ry) in enumerate(
-        zip(stands.tolist(), minus_y_x.tolist(), k_theta.tolist(), r_x.tolist(), r_y.tolist(), strict=True)
+    for j, (ok, offset, k, (r_x, r_y)) in enumerate(
+        zip(stands.tolist(), offsets.tolist(), k_theta.tolist(), radii.tolist(), strict=True)
     ):
         if ok:
-            out.append(StoreyStiffness(matrices[j], (x, -y), k, (rx, ry)))
+            out.append(StoreyStiffness(matrices[j], (offset[0], offset[1]), k, (r_x, r_y)))
         else:
             out.append(StoreyStiffness(matrices[j], None, 0.0, (0.0, 0.0)))
     return tuple(out)
+
+
+def storey_property_arrays(matrices: FloatArray) -> tuple[FloatArray, FloatArray, FloatArray, FloatArray]:
+    """For storey matrices (…, 3, 3): whether each resists both translations (relative
+    determinant of the translational part above RELATIVE_TOLERANCE), the centre's offset (…, 2)
+    from the mass centre, K_θ about it (…) and the radii (r_x, r_y) (…, 2); zeros where it does not."""
+    translational = matrices[..., :2, :2]
+    coupling = matrices[..., :2, 2]
+    scale = np.maximum(np.abs(translational).max(axis=(-2, -1)), 1e-300)
+    if matrices.size:
+        determinant = np.linalg.det(translational / scale[..., None, None])
+    else:
+        determinant = np.zeros(matrices.shape[:-2])
+    stands = determinant > RELATIVE_TOLERANCE
+    minus_y_x = np.zeros((*matrices.shape[:-2], 2))  # [−y_r, x_r] about the mass centre
+    if np.any(stands):
+        minus_y_x[stands] = np.linalg.solve(translational[stands], coupling[stands][..., None])[..., 0]
+    k_theta = np.where(
+        stands, np.maximum(matrices[..., 2, 2] - np.einsum("...j,...j->...", coupling, minus_y_x), 0.0), 0.0
+    )
+    with np.errstate(divide="ignore", invalid="ignore"):
+        radii = np.stack(
+            [np.sqrt(k_theta / translational[..., 1, 1]), np.sqrt(k_theta / translational[..., 0, 0])], axis=-1
+        )
+    radii = np.where(stands[..., None], radii, 0.0)
+    offsets = np.stack([minus_y_x[..., 1], -minus_y_x[..., 0]], axis=-1)
+    return stands, offsets, k_theta, radii
 
 
 def no_twist_offsets(K: FloatArray, patterns: FloatArray) -> FloatArray:
