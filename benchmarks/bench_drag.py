@@ -1,6 +1,7 @@
 """Time per drag step in the editor: one mouse move → live analysis → overlays and views redrawn.
 
-For each sample project the main window is opened offscreen at 1600 × 1000 with its default
+For each sample project and a generated 20-level, 100-element building (benchmarks/buildings.py)
+the main window is opened offscreen at 1600 × 1000 with its default
 panels, the first element of level 1 is grabbed by its middle and dragged back and forth in 0.25 m
 steps (every step a new position, so every step re-analyses). One step is timed from the mouse
 move until the event loop is idle again and the plan has been repainted, which includes the
@@ -27,6 +28,8 @@ from PySide6.QtWidgets import QApplication, QDockWidget
 
 from app.main_window import MainWindow
 from app.resources import sample_projects
+from benchmarks.buildings import generated_building
+from core.model.fileio import save_project
 
 STEPS = 120
 STEP_METRES = 0.25
@@ -92,6 +95,9 @@ def main() -> None:
         window.show()
         app.processEvents()
         print(f"drag steps of {STEP_METRES} m, {STEPS} per sample; times per step in ms (mouse move → repainted)")
+        generated = Path(folder) / "generated_20_levels_100_elements.poise"
+        save_project(generated_building(20, 100), generated)
+        paths = [*sample_projects(), generated]
         mode_dock = next((d for d in window.findChildren(QDockWidget) if d.objectName() == "modeShapesPanel"), None)
         for title in ("default panels (mode shapes tab in front)", "mode-shape panel hidden"):
             print(f"\n{title}")
@@ -99,7 +105,7 @@ def main() -> None:
                 f"{'sample':36} {'levels':>6} {'elems':>5} {'median':>7} {'p90':>7} {'max':>7} {'analyse':>8} "
                 f"{'steps/s':>8} {'unstable':>8}"
             )
-            for path in sample_projects():
+            for path in paths:
                 r = bench(window, path)
                 print(
                     f"{path.stem:36} {r['levels']:6d} {r['elements']:5d} {r['median']:7.1f} {r['p90']:7.1f} "

@@ -42,7 +42,8 @@ sys.path.insert(0, str(Path(__file__).resolve().parent.parent))
 
 from benchmarks.buildings import DEPTH, WIDTH, generated_building
 from core.elements import _condensed
-from core.engine import AnalysisSession, session as session_module
+from core.engine import AnalysisSession
+from core.engine import session as session_module
 from core.engine.whatif import element_positions
 from core.lateral.evaluation import brace_influence
 from core.model import Project, ShearWall

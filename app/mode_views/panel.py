@@ -260,6 +260,7 @@ class ModeViewsPanel(QWidget):
         """A drag ended: show its final state now rather than when the throttle timer fires."""
         if not self.document.previewing and self._drag_timer.isActive():
             self.refresh()
+        self._update_ticking()
 
     def refresh(self) -> None:
         """Rebuild from the document's latest results; the animation carries on from its phase.
@@ -420,7 +421,9 @@ class ModeViewsPanel(QWidget):
             self._update_ticking()
 
     def _update_ticking(self) -> None:
-        if self.on_screen and self._results is not None:
+        """Animate while shown with results; hold still while a drag is under way (the mouse is
+        down), so the drag's steps get the whole frame."""
+        if self.on_screen and self._results is not None and not self.document.previewing:
             self.clock.resume()
         else:
             self.clock.suspend()

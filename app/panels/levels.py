@@ -12,7 +12,17 @@ import dataclasses
 from collections.abc import Sequence
 
 from PySide6.QtCore import QPointF, QRectF, QSize, Qt, Signal
-from PySide6.QtGui import QAction, QColor, QContextMenuEvent, QFont, QMouseEvent, QPainter, QPaintEvent, QPen
+from PySide6.QtGui import (
+    QAction,
+    QColor,
+    QContextMenuEvent,
+    QFont,
+    QMouseEvent,
+    QPainter,
+    QPaintEvent,
+    QPen,
+    QShowEvent,
+)
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QMenu, QSizePolicy, QToolButton, QVBoxLayout, QWidget
 
 from app.canvas import style
@@ -266,12 +276,27 @@ class LevelsPanel(QWidget):
         layout.addLayout(buttons)
         layout.addWidget(self.title)
         layout.addWidget(self.form)
-        for signal in (document.project_changed, document.results_changed):
-            signal.connect(self.refresh)
+        # The fields show the level's own figures, not results: a drag's results leave them alone.
+        document.project_changed.connect(self.refresh)
         document.current_level_changed.connect(self.refresh)
-        self.refresh()
+        self._stale = False
+        """The project or level changed while the panel was hidden."""
+        self._fill()
+
+    def showEvent(self, event: QShowEvent) -> None:
+        super().showEvent(event)
+        if self._stale:
+            self._fill()
 
     def refresh(self, *_: object) -> None:
+        """Show the current level's fields now, or when the panel is next shown if it is hidden."""
+        if self.isVisible():
+            self._fill()
+        else:
+            self._stale = True
+
+    def _fill(self) -> None:
+        self._stale = False
         project = self.document.project
         number = self.document.current_level
         if not project.levels:
