@@ -30,7 +30,7 @@ from threadpoolctl import ThreadpoolController
 
 from core.arrays import FloatArray, frozen_array
 from core.errors import AnalysisError
-from core.lateral.centres import element_pattern, element_storey_stiffness
+from core.lateral.centres import element_pattern, element_storey_rows, element_storey_stiffness
 from core.lateral.evaluation import lateral_checks
 from core.model import Element, Level, Project
 from core.results import Results
@@ -66,8 +66,10 @@ class KeptElement:
     pattern: FloatArray | None = None
     storey_stiffness: FloatArray | None = None
     """Storey shear over drift under ``pattern`` (core.lateral.centres.element_storey_stiffness)."""
+    rows: FloatArray | None = None
+    """Its share of the storey matrices (core.lateral.centres.element_storey_rows)."""
     stamp: int = -1
-    """The session's pattern stamp when ``storey_stiffness`` was last confirmed."""
+    """The session's pattern stamp when ``storey_stiffness`` and ``rows`` were made."""
 
 
 class AnalysisSession:
@@ -85,6 +87,10 @@ class AnalysisSession:
         self._floors_before: tuple[FloorMass, ...] = ()
         self._patterns: FloatArray | None = None
         self._stamp = 0
+        self._storeys: FloatArray = np.zeros((0, 3, 3))
+        self._storey_updates = 0
+        self._replaced: list[KeptElement] = []
+        """Entries the last K update took out: their storey rows go out of the storey matrices too."""
 
     def analyse(self, project: Project) -> Results:
         """Masses, stiffness and modes of ``project``; raises AnalysisError if it cannot stand."""
@@ -112,22 +118,10 @@ class AnalysisSession:
         M = assemble_mass(floors)
         modes = modal_analysis(K, M, floors, eigen)
 
-        def storey_stiffnesses(patterns: FloatArray) -> list[FloatArray]:
-            if self._patterns is None or not np.array_equal(self._patterns, patterns):
-                self._patterns, self._stamp = patterns, self._stamp + 1
-            out = []
-            for entry in kept:
-                if entry.stamp != self._stamp:
-                    pattern = element_pattern(entry.element, patterns)
-                    if entry.pattern is None or not np.array_equal(entry.pattern, pattern):
-                        entry.pattern = pattern
-                        entry.storey_stiffness = element_storey_stiffness(entry.matrix, pattern)
-                    entry.stamp = self._stamp
-                assert entry.storey_stiffness is not None
-                out.append(entry.storey_stiffness)
-            return out
+        def storey_matrices(patterns: FloatArray) -> FloatArray:
+            return self._storey_matrices(floors, kept, patterns)
 
-        lateral = lateral_checks(project, floors, K, modes, storey_stiffnesses, [e.matrix for e in kept])
+        lateral = lateral_checks(project, floors, K, modes, storey_matrices, [e.matrix for e in kept])
         return Results(floors=floors, stiffness=frozen_array(K), mass=frozen_array(M), modes=modes, lateral=lateral)
 
     def _floor_masses(self, project: Project) -> tuple[FloorMass, ...]:
@@ -204,8 +198,56 @@ class AnalysisSession:
                 K[dofs, dofs] += entry.block
             self._updates += len(changed) + len(removed)
         self._K, self._order = K, order
+        # Kept until the storey matrices take them out (an analysis may stop before it gets there).
+        self._replaced += removed + [self._kept[e.element.id] for e in changed if e.element.id in self._kept]
         self._kept = {entry.element.id: entry for entry in kept}
         return (K + K.T) / 2
+
+    def _storey_matrices(
+        self, floors: tuple[FloorMass, ...], kept: list[KeptElement], patterns: FloatArray
+    ) -> FloatArray:
+        """The storey matrices of definition (a) from the kept rows: updated by the elements that
+        changed since the last analysis, or rebuilt in element order when the pattern changed."""
+        same_pattern = self._patterns is not None and np.array_equal(self._patterns, patterns)
+        if not same_pattern:
+            self._patterns, self._stamp = patterns, self._stamp + 1
+        centres = np.array([f.centre for f in floors], dtype=float).reshape(-1, 2)
+        fresh = []
+        for entry in kept:
+            if entry.stamp != self._stamp:
+                pattern = element_pattern(entry.element, patterns)
+                if (
+                    entry.pattern is None
+                    or not np.array_equal(entry.pattern, pattern)
+                    or entry.storey_stiffness is None
+                ):
+                    entry.pattern = pattern
+                    entry.storey_stiffness = element_storey_stiffness(entry.matrix, pattern)
+                spanned = _storey_slice(entry.element)
+                entry.rows = element_storey_rows(entry.element, entry.storey_stiffness, centres[spanned])
+                entry.stamp = self._stamp
+                fresh.append(entry)
+        total = self._storeys
+        rebuild = (
+            not same_pattern
+            or total.shape != (len(floors), 3, 3)
+            or self._storey_updates + len(fresh) + len(self._replaced) > REBUILD_EVERY
+            or 2 * (len(fresh) + len(self._replaced)) > len(kept)
+        )
+        if rebuild:
+            total = np.zeros((len(floors), 3, 3))
+            for entry in kept:
+                total[_storey_slice(entry.element)] += entry.rows
+            self._storey_updates = 0
+        else:
+            for old in self._replaced:
+                if old.rows is not None:
+                    total[_storey_slice(old.element)] -= old.rows
+            for entry in fresh:
+                total[_storey_slice(entry.element)] += entry.rows
+            self._storey_updates += len(fresh) + len(self._replaced)
+        self._storeys, self._replaced = total, []
+        return total.copy()
 
 
 _CONTROLLER: ThreadpoolController | None = None
@@ -235,6 +277,10 @@ def _moved_floors(
         for new, old, new_level, old_level in zip(floors, old_floors, levels, old_levels, strict=True)
     ]
     return np.concatenate([[0], np.cumsum(changed)])
+
+
+def _storey_slice(element: Element) -> slice:
+    return slice(element.bottom, element.top)
 
 
 def _dofs(floors: range) -> slice:

@@ -14,7 +14,6 @@ J. Struct. Eng. 116(5)); the two we report agree for one storey and for "proport
 
 from __future__ import annotations
 
-from collections.abc import Sequence
 from dataclasses import dataclass
 
 import numpy as np
@@ -66,32 +65,26 @@ def element_pattern(element: Element, patterns: FloatArray) -> FloatArray:
 
 
 def storey_stiffnesses(
-    project: Project,
-    floors: tuple[FloorMass, ...],
-    patterns: FloatArray,
-    element_stiffness: Sequence[FloatArray] | None = None,
+    project: Project, floors: tuple[FloorMass, ...], patterns: FloatArray
 ) -> tuple[StoreyStiffness, ...]:
-    """Definition (a) for every storey. ``patterns`` is (2, N): the floor forces in x and in y.
-    ``element_stiffness`` holds each element's :func:`element_storey_stiffness` under its
-    :func:`element_pattern` if the caller kept them from an earlier, equal pattern."""
-    if element_stiffness is None:
-        element_stiffness = [
-            element_storey_stiffness(element_matrix(project, e), element_pattern(e, patterns)) for e in project.elements
-        ]
+    """Definition (a) for every storey. ``patterns`` is (2, N): the floor forces in x and in y."""
     centres = np.array([f.centre for f in floors], dtype=float).reshape(-1, 2)
     matrices = np.zeros((len(floors), 3, 3))
-    if project.elements:
-        # One row per (element, storey spanned), in element order, so the sums run as element by element.
-        storey = np.concatenate([np.arange(e.bottom, e.top) for e in project.elements])
-        k = np.concatenate(element_stiffness)
-        lines = np.array([(*e.direction, *e.start) for e in project.elements], dtype=float)
-        counts = [e.storey_count for e in project.elements]
-        c, s, x, y = np.repeat(lines, counts, axis=0).T
-        a = np.empty((len(storey), 3))
-        a[:, 0], a[:, 1] = c, s
-        a[:, 2] = s * (x - centres[storey, 0]) - c * (y - centres[storey, 1])  # design.md's a
-        np.add.at(matrices, storey, k[:, None, None] * a[:, :, None] * a[:, None, :])
+    for e in project.elements:
+        k = element_storey_stiffness(element_matrix(project, e), element_pattern(e, patterns))
+        matrices[e.bottom : e.top] += element_storey_rows(e, k, centres[e.bottom : e.top])
     return storey_properties(matrices)
+
+
+def element_storey_rows(element: Element, stiffness: FloatArray, centres: FloatArray) -> FloatArray:
+    """(storeys, 3, 3) one element's k_e,j·aᵀa on the storeys it spans; ``centres`` (storeys, 2)
+    are the mass centres of the floors above them. The storey matrices are their sums."""
+    c, s = element.direction
+    x, y = element.start
+    a = np.empty((len(centres), 3))
+    a[:, 0], a[:, 1] = c, s
+    a[:, 2] = s * (x - centres[:, 0]) - c * (y - centres[:, 1])  # design.md's a
+    return stiffness[:, None, None] * a[:, :, None] * a[:, None, :]
 
 
 def storey_properties(matrices: FloatArray) -> tuple[StoreyStiffness, ...]:

@@ -16,7 +16,7 @@ from scipy.linalg import cho_factor, cho_solve
 
 from core.arrays import FloatArray, frozen_array
 from core.elements import member_forces
-from core.lateral.centres import StoreyStiffness, no_twist_offsets, storey_stiffnesses
+from core.lateral.centres import StoreyStiffness, no_twist_offsets, storey_properties, storey_stiffnesses
 from core.lateral.checks import (
     case_results,
     design_drift_ratios,
@@ -48,8 +48,8 @@ from core.model import BracedFrame, Element, Project
 from core.solve.assembly import FloorMass, element_matrix, element_storey_heights
 from core.solve.modal import Mode
 
-ElementStiffnesses = Callable[[FloatArray], Sequence[FloatArray]]
-"""patterns (2, N) → each element's storey stiffness under its pattern (centres.element_pattern)."""
+StoreyMatrices = Callable[[FloatArray], FloatArray]
+"""patterns (2, N) → the (N, 3, 3) storey matrices of definition (a) (centres.storey_stiffnesses)."""
 
 
 def lateral_checks(
@@ -57,12 +57,12 @@ def lateral_checks(
     floors: tuple[FloorMass, ...],
     K: FloatArray,
     modes: Sequence[Mode],
-    element_stiffnesses: ElementStiffnesses | None = None,
+    storey_matrices: StoreyMatrices | None = None,
     element_matrices: Sequence[FloatArray] | None = None,
 ) -> LateralResults:
     """Centres, radii, static load cases, torsion ratios, drifts, element demands, regularity and
     verdicts. ``K`` must have passed :func:`core.solve.diagnostics.check_stiffness`. An analysis
-    session passes what it kept: ``element_stiffnesses`` and the elements' condensed matrices."""
+    session passes what it kept: the storey matrices and the elements' condensed matrices."""
     settings = project.settings
     n = len(floors)
     masses, centres = floor_arrays(floors)
@@ -108,9 +108,9 @@ def lateral_checks(
     storeys = _storeys(
         project,
         floors,
-        storey_stiffnesses(
-            project, floors, patterns, None if element_stiffnesses is None else element_stiffnesses(patterns)
-        ),
+        storey_stiffnesses(project, floors, patterns)
+        if storey_matrices is None
+        else storey_properties(storey_matrices(patterns)),
         no_twist_offsets(K, patterns),
         cases,
         storey_k,
