@@ -13,7 +13,7 @@ import sys
 from collections.abc import Sequence
 from pathlib import Path
 
-from core.errors import AnalysisError, ModelError
+from core.errors import AnalysisError, ModelError, printable
 
 BAD_INPUT = 2
 
@@ -71,11 +71,19 @@ def main(argv: Sequence[str] | None = None) -> int:
 
         return run(arguments.file)
     except (ModelError, AnalysisError) as error:
-        print(f"poise: {error}", file=sys.stderr)
-        return BAD_INPUT
+        return _refuse(str(error))
     except OSError as error:
-        print(f"poise: {error.strerror or error}: {error.filename or ''}".rstrip(": "), file=sys.stderr)
-        return BAD_INPUT
+        return _refuse(f"{error.strerror or error}: {error.filename or ''}".rstrip(": "))
+    except Exception as error:  # a defect of Poise: still one line, never a traceback
+        return _refuse(f"unexpected {type(error).__name__}: {error} (a defect of Poise; please report it)")
+
+
+def _refuse(message: str) -> int:
+    """One line on standard error, whatever it holds and whatever the terminal's encoding."""
+    line = printable(message)
+    encoding = getattr(sys.stderr, "encoding", None) or "utf-8"
+    print("poise: " + line.encode(encoding, "backslashreplace").decode(encoding), file=sys.stderr)
+    return BAD_INPUT
 
 
 if __name__ == "__main__":

@@ -11,9 +11,9 @@ class ModelError(ValueError):
     """
 
     def __init__(self, path: str, message: str) -> None:
-        self.path = path
-        self.message = message
-        super().__init__(f"{path}: {message}" if path else message)
+        self.path = printable(path)
+        self.message = printable(message)
+        super().__init__(f"{self.path}: {self.message}" if self.path else self.message)
 
     def within(self, prefix: str) -> ModelError:
         """The same error with its path placed under ``prefix`` (``levels[2]`` + ``outline``)."""
@@ -21,6 +21,15 @@ class ModelError(ValueError):
             return ModelError(prefix or self.path, self.message)
         joiner = "" if self.path.startswith("[") else "."
         return ModelError(f"{prefix}{joiner}{self.path}", self.message)
+
+
+def printable(text: str) -> str:
+    """``text`` on one line with characters that cannot be shown (line breaks, control codes, lone
+    surrogates from a bad file) escaped, so a message quoting a bad name can always be printed,
+    logged and saved."""
+    if text.isprintable():
+        return text
+    return "".join(c if c.isprintable() else repr(c)[1:-1] for c in text)
 
 
 class AnalysisError(RuntimeError):
@@ -36,7 +45,7 @@ class AnalysisError(RuntimeError):
         levels: tuple[int, ...] = (),
         elements: tuple[str, ...] = (),
     ) -> None:
-        self.message = message
+        self.message = printable(message)
         self.levels = levels
         self.elements = elements
-        super().__init__(message)
+        super().__init__(self.message)

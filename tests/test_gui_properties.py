@@ -40,7 +40,7 @@ def test_a_valid_section_applies_in_display_units(window):
 @pytest.mark.parametrize(
     "label, text, message",
     [
-        ("Brace area", "-5", "must be a positive number"),
+        ("Brace area", "-5", "must be from 1 to 1e+10 mm²"),
         ("Brace area", "lots", "is not a number"),
         ("Bays", "0", "whole number from 1 to 20"),
         ("Bays", "2.5", "not a whole number"),
@@ -93,7 +93,7 @@ def test_level_fields_refuse_a_zero_height(window):
     before = window.document.project
     type_into(form.editor("Storey height"), "0")
     assert window.document.project == before
-    assert "must be a positive number" in form.error_text("Storey height")
+    assert "must be from 0.1 to 200 m" in form.error_text("Storey height")
     type_into(form.editor("Storey height"), "4.25")
     assert window.document.project.levels[0].height == 4.25
     assert form.error_text("Storey height") == ""
@@ -106,4 +106,4 @@ def test_project_settings_are_edited_when_nothing_is_selected(window):
     assert window.document.project.settings.accidental_eccentricity == pytest.approx(0.10)
     type_into(form.editor("Accidental eccentricity"), "80")
     assert window.document.project.settings.accidental_eccentricity == pytest.approx(0.10)
-    assert "from 0 to 0.5" in form.error_text("Accidental eccentricity")
+    assert "from 0 to 50 %" in form.error_text("Accidental eccentricity")

@@ -9,7 +9,6 @@ empty cell. Qt-free.
 from __future__ import annotations
 
 import csv
-import math
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -216,7 +215,7 @@ def _text(cell: Cell) -> str:
     if cell is None:
         return ""
     if isinstance(cell, float):
-        return "" if math.isnan(cell) else repr(cell)
+        return repr(cell)
     return str(cell)
 
 

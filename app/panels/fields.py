@@ -19,6 +19,7 @@ from PySide6.QtWidgets import QCheckBox, QComboBox, QFormLayout, QLabel, QLineEd
 from app.commands import get_path, set_path
 from app.units import Quantity
 from core.errors import ModelError
+from core.model.bounds import OutOfRangeError
 
 MIXED = object()
 """Marks a value that differs between the selected objects."""
@@ -54,8 +55,13 @@ class Row:
         return f"{self.label}, {unit}" if unit else self.label
 
 
-def short_message(error: ModelError) -> str:
-    """The model's message without the echoed internal value (the field shows what was typed)."""
+def short_message(error: ModelError, quantity: Quantity | None = None) -> str:
+    """The model's message without the echoed internal value (the field shows what was typed),
+    with an accepted range restated in the field's display units."""
+    if isinstance(error, OutOfRangeError) and quantity is not None:
+        bound = error.bound
+        low, high = f"{bound.low * quantity.factor:g}", f"{bound.high * quantity.factor:g}"
+        return f"must be {bound.describe(low, high, quantity.unit)}"
     return re.sub(r",? got .*$", "", error.message)
 
 
@@ -234,7 +240,7 @@ class FieldForm(QWidget):
         try:
             changed = [row.write(obj, value) for obj in self.objects]
         except ModelError as error:
-            return f"{row.label}: {short_message(error)}"
+            return f"{row.label}: {short_message(error, row.quantity)}"
         problem = self.apply(changed)
         if problem is None:
             self.edited.emit()

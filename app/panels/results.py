@@ -43,9 +43,9 @@ def mode_type(mode: Mode) -> str:
     return f"mixed ({', '.join(parts)})"
 
 
-def fmt_number(value: float, digits: int = 3) -> str:
-    """``value`` with ``digits`` decimals; — for nan, ∞ for infinity."""
-    if value is None or (isinstance(value, float) and math.isnan(value)):
+def fmt_number(value: float | None, digits: int = 3) -> str:
+    """``value`` with ``digits`` decimals; — where it does not apply (None), ∞ for infinity."""
+    if value is None:
         return "—"
     if math.isinf(value):
         return "∞"

@@ -352,7 +352,7 @@ def _regularity(storeys: Sequence[StoreyLateral], en1998: bool) -> list[Verdict]
                     "three storeys above",
                 ),
             ):
-                if not math.isfinite(ratio):
+                if ratio is None:
                     continue
                 if ratio >= warn_at:
                     status = Status.PASS
@@ -377,7 +377,7 @@ def _regularity(storeys: Sequence[StoreyLateral], en1998: bool) -> list[Verdict]
         candidates = [s.mass_ratio[0]]
         if s.storey + 1 < top:
             candidates.append(s.mass_ratio[1])
-        finite = [r for r in candidates if math.isfinite(r)]
+        finite = [r for r in candidates if r is not None]
         if finite:
             ratio = max(finite)
             out.append(

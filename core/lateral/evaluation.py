@@ -8,6 +8,7 @@ its pattern scaled to a 1 kN base shear and then scaled by the base shear.
 
 from __future__ import annotations
 
+import math
 from collections.abc import Callable, Iterator, Sequence
 from functools import lru_cache
 
@@ -166,7 +167,7 @@ def _storeys(
 ) -> tuple[StoreyLateral, ...]:
     drift = {d: design_drift_ratios(cases, heights, d, amplification) for d in DIRECTIONS}
     ratios = {d: stiffness_ratios(storey_k[:, i]) for i, d in enumerate(DIRECTIONS)}
-    mass = mass_ratios(masses).tolist()
+    mass = _applicable(mass_ratios(masses))
     worst = {
         name: np.column_stack(
             [
@@ -180,8 +181,8 @@ def _storeys(
     }
     drift_ratio = np.column_stack([drift["x"][0], drift["y"][0]]).tolist()
     corner_ratio = np.column_stack([drift["x"][1], drift["y"][1]]).tolist()
-    above = np.column_stack([ratios["x"][0], ratios["y"][0]]).tolist()
-    average = np.column_stack([ratios["x"][1], ratios["y"][1]]).tolist()
+    above = _applicable(np.column_stack([ratios["x"][0], ratios["y"][0]]))
+    average = _applicable(np.column_stack([ratios["x"][1], ratios["y"][1]]))
     stiffness = storey_k.tolist()
     twists = no_twist.tolist()
     twist_known = (~np.any(np.isnan(no_twist), axis=1)).tolist()
@@ -221,6 +222,12 @@ def _storeys(
             )
         )
     return tuple(out)
+
+
+def _applicable(ratios: FloatArray) -> list[list[float | None]]:
+    """Rows of ``ratios`` as lists, with None where a ratio does not apply (NaN or infinite:
+    no such storey, or nothing to divide by)."""
+    return [[v if math.isfinite(v) else None for v in row] for row in ratios.tolist()]
 
 
 def _ratio(numerator: float, denominator: float) -> float:

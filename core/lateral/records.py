@@ -183,12 +183,14 @@ class StoreyLateral:
     """Design storey drift at the worst outline vertex over the storey height, x and y."""
     storey_stiffness: tuple[float, float]
     """Storey shear over storey drift at the mass centre under the centred load cases, kN/m."""
-    stiffness_ratio_above: tuple[float, float]
-    """Storey stiffness over that of the storey above (nan for the top storey), x and y."""
-    stiffness_ratio_average: tuple[float, float]
-    """Storey stiffness over the average of the three storeys above (nan if fewer than three)."""
-    mass_ratio: tuple[float, float]
-    """Floor mass over that of the floor below and of the floor above (nan where none)."""
+    stiffness_ratio_above: tuple[float | None, float | None]
+    """Storey stiffness over that of the storey above, x and y; None where it does not apply
+    (the top storey, or a storey above without stiffness)."""
+    stiffness_ratio_average: tuple[float | None, float | None]
+    """Storey stiffness over the average of the three storeys above; None if fewer than three."""
+    mass_ratio: tuple[float | None, float | None]
+    """Floor mass over that of the floor below and of the floor above; None where there is no
+    such floor or it has no mass."""
 
 
 @dataclass(frozen=True)

@@ -15,6 +15,7 @@ import math
 from dataclasses import dataclass, field
 
 from core.errors import ModelError
+from core.model.bounds import count, text, within
 from core.model.properties import PROPERTY_TYPES, BracedFrame, ElementKind, ElementProperties, Spring
 from core.model.settings import Settings
 from core.model.validation import (
@@ -23,8 +24,6 @@ from core.model.validation import (
     as_point,
     as_ring,
     finite_point,
-    non_negative,
-    positive,
     require,
     valid_ring,
 )
@@ -42,6 +41,7 @@ class Element:
     properties: ElementProperties = field(default_factory=BracedFrame)
 
     def __post_init__(self) -> None:
+        text(self.id, "id")
         require(bool(self.id.strip()), "id", "must not be empty")
         finite_point(self.start, "start")
         finite_point(self.end, "end")
@@ -91,8 +91,9 @@ class PointMass:
     label: str = ""
 
     def __post_init__(self) -> None:
-        positive(self.mass, "mass")
+        within(self.mass, "point_mass", "mass")
         finite_point(self.position, "position")
+        text(self.label, "label")
         object.__setattr__(self, "position", as_point(self.position))
 
 
@@ -110,15 +111,18 @@ class Level:
     point_masses: tuple[PointMass, ...] = ()
 
     def __post_init__(self) -> None:
+        text(self.name, "name")
         require(bool(self.name.strip()), "name", "must not be empty")
-        positive(self.height, "height")
+        within(self.height, "storey_height", "height")
+        count(self.openings, "openings", "openings")
+        count(self.point_masses, "point_masses", "point_masses")
         outer = valid_ring(self.outline, "outline")
         object.__setattr__(self, "outline", as_ring(self.outline))
         object.__setattr__(self, "openings", tuple(as_ring(o) for o in self.openings))
         for i, opening in enumerate(self.openings):
             hole = valid_ring(opening, f"openings[{i}]")
             require(outer.contains(hole), f"openings[{i}]", "opening must lie inside the outline")
-        non_negative(self.seismic_weight, "seismic_weight")
+        within(self.seismic_weight, "seismic_weight", "seismic_weight")
 
 
 @dataclass(frozen=True)
@@ -136,6 +140,10 @@ class Project:
     elements: tuple[Element, ...] = ()
 
     def __post_init__(self) -> None:
+        for name in ("name", "job_number", "engineer", "notes", "revision"):
+            text(getattr(self, name), name)
+        count(self.levels, "levels", "levels")
+        count(self.elements, "elements", "elements")
         seen: set[str] = set()
         for i, element in enumerate(self.elements):
             path = f"elements[{i}]"

@@ -5,11 +5,11 @@ Units are kN, m, t, s (modulus in kPa).
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 from enum import StrEnum
 
-from core.model.validation import positive, require
+from core.model.bounds import count, within
+from core.model.validation import require
 
 GRAVITY = 9.80665
 """Standard gravity, m/s² (ISO 80000-3): seismic weight in kN over GRAVITY is mass in t."""
@@ -64,8 +64,10 @@ class BracedFrame:
             "tension_only",
             "applies to the cross pattern only",
         )
-        for name in ("modulus", "brace_area", "column_area", "beam_area", "beam_inertia"):
-            positive(getattr(self, name), name)
+        within(self.modulus, "modulus", "modulus")
+        for name in ("brace_area", "column_area", "beam_area"):
+            within(getattr(self, name), "section_area", name)
+        within(self.beam_inertia, "second_moment", "beam_inertia")
 
 
 @dataclass(frozen=True)
@@ -79,14 +81,10 @@ class ShearWall:
     """Share of the gross flexural and shear stiffness that is effective after cracking."""
 
     def __post_init__(self) -> None:
-        positive(self.thickness, "thickness")
-        positive(self.modulus, "modulus")
-        require(0.0 <= self.poisson < 0.5, "poisson", f"must be from 0 to 0.5, got {self.poisson!r}")
-        require(
-            math.isfinite(self.stiffness_factor) and 0.0 < self.stiffness_factor <= 1.0,
-            "stiffness_factor",
-            f"must be above 0 and at most 1, got {self.stiffness_factor!r}",
-        )
+        within(self.thickness, "thickness", "thickness")
+        within(self.modulus, "modulus", "modulus")
+        within(self.poisson, "poisson", "poisson")
+        within(self.stiffness_factor, "stiffness_factor", "stiffness_factor")
 
 
 @dataclass(frozen=True)
@@ -104,13 +102,12 @@ class MomentFrame:
 
     def __post_init__(self) -> None:
         require(isinstance(self.bays, int) and 1 <= self.bays <= 20, "bays", "must be a whole number from 1 to 20")
-        for name in ("modulus", "column_inertia", "column_area", "beam_inertia", "beam_area"):
-            positive(getattr(self, name), name)
-        require(
-            math.isfinite(self.stiffness_factor) and 0.0 < self.stiffness_factor <= 1.0,
-            "stiffness_factor",
-            f"must be above 0 and at most 1, got {self.stiffness_factor!r}",
-        )
+        within(self.modulus, "modulus", "modulus")
+        for name in ("column_area", "beam_area"):
+            within(getattr(self, name), "section_area", name)
+        for name in ("column_inertia", "beam_inertia"):
+            within(getattr(self, name), "second_moment", name)
+        within(self.stiffness_factor, "stiffness_factor", "stiffness_factor")
 
 
 @dataclass(frozen=True)
@@ -121,8 +118,9 @@ class Spring:
 
     def __post_init__(self) -> None:
         require(len(self.storey_stiffness) >= 1, "storey_stiffness", "needs one value per storey")
+        count(self.storey_stiffness, "levels", "storey_stiffness")
         for i, k in enumerate(self.storey_stiffness):
-            positive(k, f"storey_stiffness[{i}]")
+            within(k, "spring_stiffness", f"storey_stiffness[{i}]")
 
 
 ElementProperties = BracedFrame | ShearWall | MomentFrame | Spring

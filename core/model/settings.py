@@ -2,11 +2,11 @@
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass, field
 from enum import StrEnum
 
-from core.model.validation import non_negative, positive, require
+from core.model.bounds import within
+from core.model.validation import require
 
 
 class RuleSet(StrEnum):
@@ -46,16 +46,12 @@ class Eurocode8Spectrum:
     damping_percent: float = 5.0
 
     def __post_init__(self) -> None:
-        positive(self.ag, "ag")
+        within(self.ag, "ground_acceleration", "ag")
         require(self.ground_type in ("A", "B", "C", "D", "E"), "ground_type", "must be one of A, B, C, D, E")
         require(self.spectrum_type in (1, 2), "spectrum_type", "must be 1 or 2")
-        require(
-            math.isfinite(self.behaviour_factor) and self.behaviour_factor >= 1.0,
-            "behaviour_factor",
-            "must be at least 1",
-        )
-        non_negative(self.lower_bound, "lower_bound")
-        positive(self.damping_percent, "damping_percent")
+        within(self.behaviour_factor, "behaviour_factor", "behaviour_factor")
+        within(self.lower_bound, "lower_bound_factor", "lower_bound")
+        within(self.damping_percent, "damping_percent", "damping_percent")
 
 
 @dataclass(frozen=True)
@@ -75,9 +71,11 @@ class Asce7Spectrum:
     """C_d."""
 
     def __post_init__(self) -> None:
-        for name in ("sds", "sd1", "long_period", "response_modification", "importance", "deflection_amplification"):
-            positive(getattr(self, name), name)
-        non_negative(self.s1, "s1")
+        within(self.sds, "spectral_acceleration", "sds")
+        within(self.sd1, "spectral_acceleration", "sd1")
+        within(self.s1, "spectral_acceleration_s1", "s1")
+        for name in ("long_period", "response_modification", "importance", "deflection_amplification"):
+            within(getattr(self, name), name, name)
 
 
 @dataclass(frozen=True)
@@ -103,20 +101,8 @@ class Settings:
     damping_ratio: float = 0.05
 
     def __post_init__(self) -> None:
-        non_negative(self.base_shear_coefficient, "base_shear_coefficient")
-        require(
-            math.isfinite(self.accidental_eccentricity) and 0.0 <= self.accidental_eccentricity <= 0.5,
-            "accidental_eccentricity",
-            "must be from 0 to 0.5",
-        )
-        positive(self.drift_limit, "drift_limit")
-        require(
-            math.isfinite(self.drift_reduction) and 0.0 < self.drift_reduction <= 1.0,
-            "drift_reduction",
-            "must be above 0 and at most 1",
-        )
-        require(
-            math.isfinite(self.damping_ratio) and 0.0 < self.damping_ratio < 1.0,
-            "damping_ratio",
-            "must be above 0 and below 1",
-        )
+        within(self.base_shear_coefficient, "base_shear_coefficient", "base_shear_coefficient")
+        within(self.accidental_eccentricity, "accidental_eccentricity", "accidental_eccentricity")
+        within(self.drift_limit, "drift_limit", "drift_limit")
+        within(self.drift_reduction, "drift_reduction", "drift_reduction")
+        within(self.damping_ratio, "damping_ratio", "damping_ratio")

@@ -2,12 +2,11 @@
 
 from __future__ import annotations
 
-import math
-
 from shapely.geometry import Polygon
 from shapely.validation import explain_validity
 
 from core.errors import ModelError
+from core.model.bounds import count, within
 
 Point = tuple[float, float]
 Ring = tuple[Point, ...]
@@ -18,20 +17,10 @@ def require(condition: bool, path: str, message: str) -> None:
         raise ModelError(path, message)
 
 
-def positive(value: float, path: str) -> None:
-    require(math.isfinite(value) and value > 0.0, path, f"must be a positive number, got {value!r}")
-
-
-def non_negative(value: float, path: str) -> None:
-    require(math.isfinite(value) and value >= 0.0, path, f"must be zero or positive, got {value!r}")
-
-
 def finite_point(point: Point, path: str) -> None:
-    require(
-        len(point) == 2 and all(math.isfinite(c) for c in point),
-        path,
-        f"must be a finite (x, y) pair, got {point!r}",
-    )
+    require(len(point) == 2, path, f"must be an (x, y) pair, got {point!r}")
+    for c in point:
+        within(c, "coordinate", path)
 
 
 def as_point(point: Point) -> Point:
@@ -44,6 +33,7 @@ def as_ring(ring: Ring) -> Ring:
 
 def valid_ring(ring: Ring, path: str) -> Polygon:
     require(len(ring) >= 3, path, f"a polygon needs at least 3 points, got {len(ring)}")
+    count(ring, "points", path)
     for i, point in enumerate(ring):
         finite_point(point, f"{path}[{i}]")
     polygon = Polygon(ring)

@@ -14,7 +14,7 @@ import numpy as np
 
 from core.arrays import FloatArray
 from core.elements import condensed_stiffness
-from core.errors import AnalysisError
+from core.errors import AnalysisError, ModelError
 from core.model import GRAVITY, Element, Level, Point, Project
 from core.model.geometry import area_properties
 
@@ -101,7 +101,14 @@ def element_matrix(project: Project, element: Element) -> FloatArray:
     """The element's condensed lateral stiffness over its storeys (cached in core.elements)."""
     if element.length <= 0.0:
         raise AnalysisError(f"element {element.id} has zero length", elements=(element.id,))
-    return condensed_stiffness(element.properties, element.length, element_storey_heights(project, element))
+    try:
+        return condensed_stiffness(element.properties, element.length, element_storey_heights(project, element))
+    except ModelError as error:
+        raise AnalysisError(
+            f"element {element.id}: {error.message}",
+            levels=tuple(range(element.bottom + 1, element.top + 1)),
+            elements=(element.id,),
+        ) from None
 
 
 def element_floors(element: Element) -> range:
