@@ -16,7 +16,8 @@ from typing import TYPE_CHECKING, Any
 from PySide6.QtGui import QUndoCommand
 
 from core.errors import ModelError
-from core.model import Element, ElementKind, Level, Point, Project, Ring, Spring, default_properties
+from core.model import Element, Kind, Level, Point, Project, Ring, default_properties
+from core.model.kinds import resized, storey_inserted, storey_removed
 
 if TYPE_CHECKING:
     from app.document import ProjectDocument
@@ -95,11 +96,9 @@ def _set_parts(obj: Any, parts: list[str | int], value: Any) -> Any:
 # ------------------------------------------------------------------ elements
 
 
-def new_element(project: Project, kind: ElementKind, start: Point, end: Point, bottom: int, top: int) -> Element:
+def new_element(project: Project, kind: Kind, start: Point, end: Point, bottom: int, top: int) -> Element:
     """An element of ``kind`` with the kind's default properties and a fresh id."""
-    properties = default_properties(kind)
-    if isinstance(properties, Spring):
-        properties = Spring(storey_stiffness=(properties.storey_stiffness[0],) * (top - bottom))
+    properties = default_properties(kind, storeys=top - bottom)
     return Element(project.next_element_id(kind), _point(start), _point(end), bottom, top, properties)
 
 
@@ -164,14 +163,9 @@ def set_length_and_angle(element: Element, length: float, angle_degrees: float) 
 
 
 def respan(element: Element, bottom: int, top: int) -> Element:
-    """The element over levels ``bottom``..``top``; a spring's storey stiffnesses follow (the last
-    value repeats for added storeys)."""
-    properties = element.properties
-    if isinstance(properties, Spring) and top > bottom:
-        values = list(properties.storey_stiffness)
-        count = top - bottom
-        values = (values + [values[-1]] * count)[:count]
-        properties = Spring(storey_stiffness=tuple(values))
+    """The element over levels ``bottom``..``top``; per-storey properties (a spring's storey
+    stiffnesses) follow, the last value repeating for added storeys."""
+    properties = resized(element.properties, top - bottom)
     return dataclasses.replace(element, bottom=bottom, top=top, properties=properties)
 
 
@@ -257,12 +251,8 @@ def insert_level(
         if e.id in extend and e.top == position and e.bottom < position:
             top = position + 1
         properties = e.properties
-        if isinstance(properties, Spring) and top - bottom != e.top - e.bottom:
-            values = list(properties.storey_stiffness)
-            source = position - e.bottom - (1 if copy_storey_below else 0)
-            source = min(max(source, 0), len(values) - 1)
-            values.insert(source, values[source])
-            properties = Spring(storey_stiffness=tuple(values))
+        if top - bottom != e.top - e.bottom:
+            properties = storey_inserted(properties, position - e.bottom - (1 if copy_storey_below else 0))
         elements.append(dataclasses.replace(e, bottom=bottom, top=top, properties=properties))
     return dataclasses.replace(project, levels=tuple(levels), elements=tuple(elements))
 
@@ -306,9 +296,7 @@ def delete_level(project: Project, level_number: int) -> tuple[Project, list[str
             removed.append(e.id)
             continue
         properties = e.properties
-        if isinstance(properties, Spring) and e.bottom < level_number <= e.top:
-            values = list(properties.storey_stiffness)
-            del values[level_number - 1 - e.bottom]
-            properties = Spring(storey_stiffness=tuple(values))
+        if e.bottom < level_number <= e.top:
+            properties = storey_removed(properties, level_number - 1 - e.bottom)
         elements.append(dataclasses.replace(e, bottom=bottom, top=top, properties=properties))
     return dataclasses.replace(project, levels=tuple(levels), elements=tuple(elements)), removed

@@ -36,7 +36,7 @@ from core.model import (
     BracedFrame,
     BracePattern,
     Element,
-    ElementKind,
+    Kind,
     LoadMethod,
     Material,
     MomentFrame,
@@ -58,19 +58,17 @@ def _material_of(element: Element) -> str:
     return "custom"
 
 
-def _with_kind(element: Element, kind: ElementKind) -> Element:
+def _with_kind(element: Element, kind: Kind) -> Element:
     if kind is element.kind:
         return element
-    properties = default_properties(kind)
-    if isinstance(properties, Spring):
-        properties = Spring(storey_stiffness=properties.storey_stiffness * element.storey_count)
-    return dataclasses.replace(element, properties=properties)
+    return dataclasses.replace(element, properties=default_properties(kind, storeys=element.storey_count))
 
 
 def _with_material(element: Element, material: str) -> Element:
     if material == "custom" or material == _material_of(element):
         return element
-    return dataclasses.replace(element, properties=default_properties(element.kind, Material(material)))
+    properties = default_properties(element.kind, Material(material), element.storey_count)
+    return dataclasses.replace(element, properties=properties)
 
 
 def _with_angle(element: Element, angle: float) -> Element:

@@ -11,20 +11,24 @@ its matrix. Length and heights enter the key rounded to 1 µm, so the rounding n
 
 from __future__ import annotations
 
-from collections.abc import Callable
 from functools import lru_cache
-from typing import Any
 
 import numpy as np
 import numpy.typing as npt
 
 from core.arrays import FloatArray
-from core.elements import braced_frame, moment_frame, shear_wall, spring
 from core.elements.forces import CondensedElement, ElementForces
+from core.elements.kinds import builder_of, register_element_kind, unregister_element_kind
 from core.errors import ModelError
-from core.model import BracedFrame, ElementProperties, MomentFrame, ShearWall, Spring
+from core.model import ElementProperties
 
-__all__ = ["ElementForces", "condensed_stiffness", "member_forces"]
+__all__ = [
+    "ElementForces",
+    "condensed_stiffness",
+    "member_forces",
+    "register_element_kind",
+    "unregister_element_kind",
+]
 
 KEY_SCALE = 1.0e6
 """Length and storey heights are rounded to 1/KEY_SCALE m (1 µm) for the cache key."""
@@ -68,20 +72,11 @@ def member_forces(
         raise ModelError("displacements", "too large to give finite forces; give them in m") from error
 
 
-_BUILDERS: dict[type, Callable[[Any, float, tuple[float, ...]], CondensedElement]] = {
-    BracedFrame: braced_frame.condense,
-    ShearWall: shear_wall.condense,
-    MomentFrame: moment_frame.condense,
-    Spring: spring.condense,
-}
-
-
 def _model(
     properties: ElementProperties, length: float, storey_heights: tuple[float, ...]
 ) -> CondensedElement:
     """The cached condensed model, after checking the input and rounding the key."""
-    if type(properties) not in _BUILDERS:
-        raise ModelError("properties", f"not an element kind: {type(properties).__name__}")
+    builder_of(properties)  # ModelError now for properties of no registered kind
     length = _metres(length, "length")
     try:
         heights = tuple([round(h * KEY_SCALE) / KEY_SCALE for h in storey_heights])
@@ -118,4 +113,4 @@ def _metres(value: float, path: str) -> float:
 def _condensed(
     properties: ElementProperties, length: float, storey_heights: tuple[float, ...]
 ) -> CondensedElement:
-    return _BUILDERS[type(properties)](properties, length, storey_heights)
+    return builder_of(properties)(properties, length, storey_heights)

@@ -1,5 +1,13 @@
 """The model stage: the project and its parts, settings, outline geometry and the ``.poise`` file."""
 
+from core.model.kinds import (
+    Kind,
+    KindSpec,
+    default_properties,
+    kind_spec,
+    register_kind,
+    registered_kinds,
+)
 from core.model.project import (
     Element,
     Level,
@@ -10,7 +18,6 @@ from core.model.properties import (
     CONCRETE_E,
     CRACKED_FACTOR,
     GRAVITY,
-    PROPERTY_TYPES,
     STEEL_E,
     BracedFrame,
     BracePattern,
@@ -20,7 +27,6 @@ from core.model.properties import (
     MomentFrame,
     ShearWall,
     Spring,
-    default_properties,
 )
 from core.model.settings import (
     Asce7Spectrum,
@@ -39,7 +45,6 @@ __all__ = [
     "CONCRETE_E",
     "CRACKED_FACTOR",
     "GRAVITY",
-    "PROPERTY_TYPES",
     "STEEL_E",
     "Asce7Spectrum",
     "BracePattern",
@@ -48,6 +53,8 @@ __all__ = [
     "ElementKind",
     "ElementProperties",
     "Eurocode8Spectrum",
+    "Kind",
+    "KindSpec",
     "Level",
     "LoadMethod",
     "Material",
@@ -62,4 +69,7 @@ __all__ = [
     "Spring",
     "SystemType",
     "default_properties",
+    "kind_spec",
+    "register_kind",
+    "registered_kinds",
 ]

@@ -35,7 +35,7 @@ from typing import Any
 import numpy as np
 
 from core.errors import ModelError
-from core.model import PROPERTY_TYPES, Element, ElementKind, Level, Project, Settings
+from core.model import Element, Level, Project, Settings, kind_spec
 from core.model.bounds import FILE_SIZE, NESTING
 
 FORMAT_TAG = "poise-project"
@@ -60,7 +60,7 @@ def _encode(value: Any) -> Any:
 def _encode_element(element: Element) -> dict[str, Any]:
     return {
         "id": element.id,
-        "kind": element.kind.value,
+        "kind": str(element.kind),
         "start": list(element.start),
         "end": list(element.end),
         "bottom": element.bottom,
@@ -196,9 +196,13 @@ def _join(path: str, name: str) -> str:
 def _decode_element(value: Any, path: str) -> Element:
     if not isinstance(value, dict):
         raise ModelError(path, f"expected an object, got {_shown(value)}")
-    kind = _decode(value.get("kind"), ElementKind, f"{path}.kind")
+    name = _decode(value.get("kind"), str, f"{path}.kind")
+    try:
+        spec = kind_spec(name)
+    except ModelError as error:
+        raise ModelError(f"{path}.kind", error.message) from None
     rest = {k: v for k, v in value.items() if k != "kind"}
-    properties = _decode_dataclass(rest.pop("properties", {}), PROPERTY_TYPES[kind], f"{path}.properties")
+    properties = _decode_dataclass(rest.pop("properties", {}), spec.properties, f"{path}.properties")
     fields = _decode_dataclass(rest, _ElementFields, path)
     return _construct(Element, {**dataclasses.asdict(fields), "properties": properties}, path)
 

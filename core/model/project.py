@@ -16,7 +16,8 @@ from dataclasses import dataclass, field
 
 from core.errors import ModelError
 from core.model.bounds import count, text, within
-from core.model.properties import PROPERTY_TYPES, BracedFrame, ElementKind, ElementProperties, Spring
+from core.model.kinds import Kind, kind_of, kind_spec, storey_values
+from core.model.properties import BracedFrame, ElementProperties
 from core.model.settings import Settings
 from core.model.validation import (
     Point,
@@ -49,17 +50,18 @@ class Element:
         object.__setattr__(self, "end", as_point(self.end))
         require(isinstance(self.bottom, int) and self.bottom >= 0, "bottom", "must be a level index ≥ 0")
         require(isinstance(self.top, int) and self.top > self.bottom, "top", "must be above the bottom level")
-        if isinstance(self.properties, Spring):
+        per_storey = storey_values(self.properties)
+        if per_storey is not None:
             require(
-                len(self.properties.storey_stiffness) == self.storey_count,
-                "properties.storey_stiffness",
-                f"needs {self.storey_count} values (one per storey spanned), "
-                f"got {len(self.properties.storey_stiffness)}",
+                len(per_storey) == self.storey_count,
+                f"properties.{kind_spec(self.kind).storey_values}",
+                f"needs {self.storey_count} values (one per storey spanned), got {len(per_storey)}",
             )
 
     @property
-    def kind(self) -> ElementKind:
-        return next(k for k, t in PROPERTY_TYPES.items() if isinstance(self.properties, t))
+    def kind(self) -> Kind:
+        """The registered kind of the element's properties (:mod:`core.model.kinds`)."""
+        return kind_of(self.properties)
 
     @property
     def length(self) -> float:
@@ -176,9 +178,9 @@ class Project:
         """Elements that span storey ``storey`` (1-based: storey j lies below ``levels[j-1]``)."""
         return tuple(e for e in self.elements if e.bottom < storey <= e.top)
 
-    def next_element_id(self, kind: ElementKind) -> str:
-        """A fresh id such as ``W3`` for the third wall."""
-        prefix = {"braced_frame": "B", "shear_wall": "W", "moment_frame": "M", "spring": "S"}[kind.value]
+    def next_element_id(self, kind: Kind) -> str:
+        """A fresh id such as ``W3`` for the third wall: the kind's prefix and the first free number."""
+        prefix = kind_spec(kind).id_prefix
         used = {e.id for e in self.elements}
         n = 1
         while f"{prefix}{n}" in used:

@@ -23,7 +23,6 @@ CRACKED_FACTOR = 0.5
 (EN 1998-1 §4.3.1(7): one-half of the uncracked flexural and shear stiffness)."""
 
 
-
 class Material(StrEnum):
     """Material family; it sets the default modulus and the cracking factor."""
 
@@ -127,7 +126,7 @@ ElementProperties = BracedFrame | ShearWall | MomentFrame | Spring
 
 
 class ElementKind(StrEnum):
-    """The four kinds of lateral element."""
+    """The names of the built-in element kinds (more may be registered: :mod:`core.model.kinds`)."""
 
     BRACED_FRAME = "braced_frame"
     SHEAR_WALL = "shear_wall"
@@ -135,31 +134,22 @@ class ElementKind(StrEnum):
     SPRING = "spring"
 
 
-PROPERTY_TYPES: dict[ElementKind, type[ElementProperties]] = {
-    ElementKind.BRACED_FRAME: BracedFrame,
-    ElementKind.SHEAR_WALL: ShearWall,
-    ElementKind.MOMENT_FRAME: MomentFrame,
-    ElementKind.SPRING: Spring,
-}
+def steel_or_concrete_wall(material: Material | None) -> ShearWall:
+    """A concrete wall (cracked, EN 1998-1 §4.3.1(7)), or a steel plate wall for steel."""
+    if material is Material.STEEL:
+        return ShearWall(thickness=0.012, modulus=STEEL_E, poisson=0.3, stiffness_factor=1.0)
+    return ShearWall()
 
 
-def default_properties(kind: ElementKind, material: Material | None = None) -> ElementProperties:
-    """Sensible concept-stage properties of ``kind`` in ``material`` (its usual one by default)."""
-    if kind is ElementKind.BRACED_FRAME:
-        return BracedFrame()
-    if kind is ElementKind.SHEAR_WALL:
-        if material is Material.STEEL:
-            return ShearWall(thickness=0.012, modulus=STEEL_E, poisson=0.3, stiffness_factor=1.0)
-        return ShearWall()
-    if kind is ElementKind.MOMENT_FRAME:
-        if material is Material.CONCRETE:
-            return MomentFrame(
-                modulus=CONCRETE_E,
-                column_inertia=0.6**4 / 12,
-                column_area=0.36,
-                beam_inertia=0.4 * 0.7**3 / 12,
-                beam_area=0.28,
-                stiffness_factor=CRACKED_FACTOR,
-            )
-        return MomentFrame()
-    return Spring()
+def steel_or_concrete_frame(material: Material | None) -> MomentFrame:
+    """A steel moment frame, or a cracked concrete one of 600 mm columns and 400 × 700 beams."""
+    if material is Material.CONCRETE:
+        return MomentFrame(
+            modulus=CONCRETE_E,
+            column_inertia=0.6**4 / 12,
+            column_area=0.36,
+            beam_inertia=0.4 * 0.7**3 / 12,
+            beam_area=0.28,
+            stiffness_factor=CRACKED_FACTOR,
+        )
+    return MomentFrame()

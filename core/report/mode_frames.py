@@ -26,7 +26,17 @@ import numpy as np
 import numpy.typing as npt
 
 from core.arrays import FloatArray
-from core.model import BracedFrame, BracePattern, Element, ElementKind, MomentFrame, Point, Project
+from core.model import (
+    BracedFrame,
+    BracePattern,
+    Element,
+    ElementKind,
+    Kind,
+    MomentFrame,
+    Point,
+    Project,
+    registered_kinds,
+)
 from core.solve.assembly import FloorMass
 from core.solve.modal import Mode
 
@@ -137,9 +147,9 @@ class BuildingGeometry:
     """Each floor's outline and openings, as segments at its elevation."""
     ground: AttachedPoints
     """The first floor's outline on the fixed base, as segments at z = 0."""
-    plan_elements: Mapping[ElementKind, AttachedPoints]
+    plan_elements: Mapping[Kind, AttachedPoints]
     """Each element's plan line on every floor it reaches, as segments."""
-    frame_lines: Mapping[ElementKind, AttachedPoints]
+    frame_lines: Mapping[Kind, AttachedPoints]
     """In elevation, storey by storey: columns, beams and braces of frames, spring lines (segments)."""
     wall_panels: AttachedPoints
     """Shear walls storey by storey as closed quads (QUAD_ROWS rows each)."""
@@ -281,10 +291,10 @@ def building_geometry(
     ])
     ground = AttachedPoints.of(ring_segments(project.levels[0].outline), BASE, 0.0)
 
-    plan_elements: dict[ElementKind, AttachedPoints] = {}
-    frame_lines: dict[ElementKind, AttachedPoints] = {}
+    plan_elements: dict[Kind, AttachedPoints] = {}
+    frame_lines: dict[Kind, AttachedPoints] = {}
     walls = []
-    for kind in ElementKind:
+    for kind in registered_kinds():
         of_kind = [e for e in project.elements if e.kind is kind]
         plan_elements[kind] = AttachedPoints.join([
             AttachedPoints.of([e.start, e.end], j - 1, elevations[j - 1])
