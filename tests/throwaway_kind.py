@@ -16,7 +16,7 @@ import numpy as np
 from core.arrays import FloatArray, frozen_array
 from core.elements import ElementForces, register_element_kind, unregister_element_kind
 from core.model import KindSpec, Material
-from core.model.validation import positive
+from core.model.bounds import within
 
 STRUT_KIND = "test_strut"
 
@@ -28,7 +28,7 @@ class StrutLine:
     stiffness: float = 4.0e4
 
     def __post_init__(self) -> None:
-        positive(self.stiffness, "stiffness")
+        within(self.stiffness, "spring_stiffness", "stiffness")
 
 
 @dataclass(frozen=True)
