@@ -38,10 +38,10 @@ STEP_METRES = 0.25
 
 def bench(window: MainWindow, path: Path) -> dict[str, float]:
     app = QApplication.instance()
-    window.ask_unsaved = lambda: "discard"
-    window.open_sample(path, confirm=False)
+    window.files.ask_unsaved = lambda: "discard"
+    window.files.open_sample(path, confirm=False)
     window.tool_options.grid.setValue(STEP_METRES)
-    window.set_tool("select")
+    window.drawing.set_tool("select")
     app.processEvents()
     window.plan_view.fit()
     window.document.flush_analysis()

@@ -18,7 +18,7 @@ def window(qtbot, tmp_path):
 
 
 def test_outline_by_clicks_closes_on_first_corner(window):
-    window.set_tool("polygon-outline")
+    window.drawing.set_tool("polygon-outline")
     window.plan_view.fit(QRectF(-2, -2, 30, 20))
     corners = [(0, 0), (24, 0), (24, 12), (10, 12), (10, 8), (0, 8)]
     for x, y in corners:
@@ -32,7 +32,7 @@ def test_outline_by_clicks_closes_on_first_corner(window):
 
 
 def test_outline_closes_with_enter_and_backspace_takes_back_a_corner(window):
-    window.set_tool("polygon-outline")
+    window.drawing.set_tool("polygon-outline")
     for x, y in [(0, 0), (20, 0), (25, 5), (20, 10)]:
         click(window, x, y)
     QTest.keyClick(window.plan_view, Qt.Key.Key_Backspace)
@@ -43,7 +43,7 @@ def test_outline_closes_with_enter_and_backspace_takes_back_a_corner(window):
 
 
 def test_self_crossing_outline_is_refused_with_a_message(window):
-    window.set_tool("polygon-outline")
+    window.drawing.set_tool("polygon-outline")
     for x, y in [(0, 0), (10, 10), (10, 0), (0, 10)]:
         click(window, x, y)
     QTest.keyClick(window.plan_view, Qt.Key.Key_Return)
@@ -53,10 +53,10 @@ def test_self_crossing_outline_is_refused_with_a_message(window):
 
 
 def test_rectangle_outline_by_drag_then_braced_frame_by_drag(window):
-    window.set_tool("rectangle-outline")
+    window.drawing.set_tool("rectangle-outline")
     drag(window, (0, 0), (30, 15))
     assert window.document.project.levels[0].outline == ((0, 0), (30, 0), (30, 15), (0, 15))
-    window.set_tool("place-braced_frame")
+    window.drawing.set_tool("place-braced_frame")
     drag(window, (0, 4), (0, 10))
     project = window.document.project
     (element,) = project.elements
@@ -69,7 +69,7 @@ def test_rectangle_outline_by_drag_then_braced_frame_by_drag(window):
 
 def test_element_by_two_clicks_with_typed_length_and_angle(qtbot, tmp_path):
     window = make_window(qtbot, tmp_path, one_storey())
-    window.set_tool("place-shear_wall")
+    window.drawing.set_tool("place-shear_wall")
     click(window, 30, 3)
     QTest.keyClick(window.plan_view, "7")  # typing on the plan continues in the length field
     field_length, field_angle = window.tool_options.fields
@@ -87,7 +87,7 @@ def test_element_by_two_clicks_with_typed_length_and_angle(qtbot, tmp_path):
 
 def test_new_element_snaps_to_an_existing_end_off_the_grid(qtbot, tmp_path):
     window = make_window(qtbot, tmp_path, one_storey((frame("B1", (3.37, 2.21), (3.37, 8.63)),)))
-    window.set_tool("place-moment_frame")
+    window.drawing.set_tool("place-moment_frame")
     drag(window, (3.37 + 0.1, 8.63 + 0.1), (12.0, 8.63))
     new = window.document.project.element("M1")
     assert new.start == (3.37, 8.63)
@@ -99,7 +99,7 @@ def test_element_spans_the_chosen_levels(qtbot, tmp_path):
     window = make_window(qtbot, tmp_path, project)
     window.placement.set(1, 2)
     window.document.set_current_level(2)
-    window.set_tool("place-spring")
+    window.drawing.set_tool("place-spring")
     drag(window, (10, 0), (10, 18))
     (spring,) = window.document.project.elements
     assert (spring.bottom, spring.top) == (1, 2)
@@ -108,7 +108,7 @@ def test_element_spans_the_chosen_levels(qtbot, tmp_path):
 
 def test_rectangle_opening_inside_and_refused_outside(qtbot, tmp_path):
     window = make_window(qtbot, tmp_path, one_storey())
-    window.set_tool("rectangle-opening")
+    window.drawing.set_tool("rectangle-opening")
     drag(window, (4, 4), (8, 9))
     assert window.document.project.levels[0].openings == (((4, 4), (8, 4), (8, 9), (4, 9)),)
     before = window.document.project
@@ -119,7 +119,7 @@ def test_rectangle_opening_inside_and_refused_outside(qtbot, tmp_path):
 
 def test_corner_drag_and_edge_insert(qtbot, tmp_path):
     window = make_window(qtbot, tmp_path, one_storey())
-    window.set_tool("vertex")
+    window.drawing.set_tool("vertex")
     drag(window, (36, 18), (30, 20))
     assert window.document.project.levels[0].outline[2] == (30, 20)
     assert window.document.undo_stack.count() == 1
@@ -139,7 +139,7 @@ def test_arrow_keys_nudge_and_rotate_turns_a_quarter(qtbot, tmp_path):
     settle(window)
     assert window.document.project.element("B3").start == (18, 0)
     assert window.document.undo_stack.count() == 1, "a run of nudges is one undo step"
-    window.rotate_action.trigger()
+    window.edits.rotate_action.trigger()
     b3 = window.document.project.element("B3")
     assert (b3.start, b3.end) == ((21, -3), (21, 3))
 
@@ -149,7 +149,7 @@ def test_copy_to_levels_makes_new_elements(qtbot, tmp_path):
     project = replace(base, levels=(base.levels[0], replace(base.levels[0], name="Level 2")))
     window = make_window(qtbot, tmp_path, project)
     window.document.select(["B1"])
-    new_ids = window.copy_selection_to(1, 2)
+    new_ids = window.edits.copy_selection_to(1, 2)
     copy = window.document.project.element(new_ids[0])
     assert (copy.start, copy.end, copy.bottom, copy.top) == ((0, 6), (0, 12), 1, 2)
     assert window.document.selection == tuple(new_ids)
@@ -162,7 +162,7 @@ def test_underlay_is_shown_locked_and_snappable(qtbot, tmp_path):
     settle(window)
     underlay = window.scene._underlay
     assert underlay is not None and not underlay.acceptedMouseButtons()
-    window.set_tool("place-braced_frame")
+    window.drawing.set_tool("place-braced_frame")
     drag(window, (5.4, 3.15), (14.5, 3.1))
     (element,) = window.document.project.elements
     assert (element.start, element.end) == ((5.37, 3.11), (14.52, 3.11))

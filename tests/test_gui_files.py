@@ -23,7 +23,7 @@ def window(qtbot, tmp_path):
 def problems(window, monkeypatch):
     """Messages the window would show in a message box."""
     shown: list[tuple[str, str]] = []
-    monkeypatch.setattr(window, "show_problem", lambda title, text: shown.append((title, text)))
+    monkeypatch.setattr(window.files, "show_problem", lambda title, text: shown.append((title, text)))
     return shown
 
 
@@ -31,21 +31,21 @@ def test_save_then_reopen_gives_the_same_project(window, tmp_path, qtbot):
     drag(window, (0.0, 9.0), (3.0, 9.0))
     edited = window.document.project
     path = tmp_path / "box.poise"
-    assert window.save_as(path)
+    assert window.files.save_as(path)
     assert not window.isWindowModified() and "box.poise" in window.windowTitle()
     assert load_project(path) == edited
     other = make_window(qtbot, tmp_path / "..", None)
-    assert other.open_file(path, confirm=False)
+    assert other.files.open_file(path, confirm=False)
     assert other.document.project == edited
     assert other.document.file_path == path
 
 
 def test_save_again_keeps_a_backup(window, tmp_path):
     path = tmp_path / "box.poise"
-    window.save_as(path)
+    window.files.save_as(path)
     window.document.select(["B1"])
-    window.delete_action.trigger()
-    assert window.save()
+    window.edits.delete_action.trigger()
+    assert window.files.save()
     assert (tmp_path / "box.poise.bak").exists()
     assert len(load_project(path).elements) == 3
 
@@ -62,7 +62,7 @@ def test_a_bad_file_gives_a_message_and_keeps_the_work(window, problems, tmp_pat
     before = window.document.project
     path = tmp_path / "bad.poise"
     path.write_text(text, encoding="utf-8")
-    assert not window.open_file(path, confirm=False)
+    assert not window.files.open_file(path, confirm=False)
     assert window.document.project == before
     assert len(problems) == 1 and expected in problems[0][1]
 
@@ -72,19 +72,19 @@ def test_a_file_with_an_invalid_field_names_the_field(window, problems, tmp_path
     document["levels"][0]["height"] = -3
     path = tmp_path / "negative.poise"
     path.write_text(json.dumps(document), encoding="utf-8")
-    window.open_file(path, confirm=False)
+    window.files.open_file(path, confirm=False)
     assert "levels[0].height" in problems[0][1]
 
 
 def test_a_missing_file_and_an_unwritable_place_give_messages(window, problems, tmp_path):
-    assert not window.open_file(tmp_path / "nowhere.poise", confirm=False)
-    assert not window.save_as(tmp_path / "no-such-folder" / "x.poise")
+    assert not window.files.open_file(tmp_path / "nowhere.poise", confirm=False)
+    assert not window.files.save_as(tmp_path / "no-such-folder" / "x.poise")
     assert len(problems) == 2
 
 
 def test_unsaved_work_is_not_lost_without_asking(window, tmp_path):
     window.document.select(["B1"])
-    window.delete_action.trigger()
+    window.edits.delete_action.trigger()
     edited = window.document.project
     asked = []
 
@@ -95,33 +95,33 @@ def test_unsaved_work_is_not_lost_without_asking(window, tmp_path):
 
         return ask
 
-    window.ask_unsaved = answer("cancel")
-    window.new_project()
+    window.files.ask_unsaved = answer("cancel")
+    window.files.new_project()
     assert window.document.project == edited
-    window.ask_unsaved = answer("discard")
-    window.new_project()
+    window.files.ask_unsaved = answer("discard")
+    window.files.new_project()
     assert window.document.project == Project()
     assert asked == ["cancel", "discard"]
     # Unmodified work is replaced without a question.
-    window.ask_unsaved = answer("cancel")
-    window.open_sample(sample_path("pavilion_1_storey"))
+    window.files.ask_unsaved = answer("cancel")
+    window.files.open_sample(sample_path("pavilion_1_storey"))
     assert asked == ["cancel", "discard"]
     assert window.document.file_path is None, "a sample opens as an unsaved copy"
 
 
 def test_closing_with_unsaved_work_can_be_cancelled(window):
     window.document.select(["B1"])
-    window.delete_action.trigger()
-    window.ask_unsaved = lambda: "cancel"
+    window.edits.delete_action.trigger()
+    window.files.ask_unsaved = lambda: "cancel"
     assert not window.close()
     assert window.isVisible()
-    window.ask_unsaved = lambda: "discard"
+    window.files.ask_unsaved = lambda: "discard"
     assert window.close()
 
 
 def test_recent_files_and_layout_are_remembered(window, tmp_path, qtbot):
     path = tmp_path / "box.poise"
-    window.save_as(path)
+    window.files.save_as(path)
     window.tables_dock.hide()
     window.tool_options.grid.setValue(0.5)
     window.save_settings()
@@ -131,6 +131,6 @@ def test_recent_files_and_layout_are_remembered(window, tmp_path, qtbot):
     qtbot.addWidget(again)
     again.show()
     settle(again)
-    assert again.recent_files() == [str(path.resolve())]
+    assert again.files.recent.paths() == [str(path.resolve())]
     assert not again.tables_dock.isVisible()
     assert again.plan_view.grid_spacing == 0.5

@@ -74,14 +74,14 @@ def test_level_actions_in_the_window_are_undoable(qtbot, tmp_path):
     window = make_window(qtbot, tmp_path, three_storeys())
     start = window.document.project
     window.document.set_current_level(2)
-    window.duplicate_level_action.trigger()
+    window.levels.duplicate_level_action.trigger()
     assert window.document.current_level == 3 and len(window.document.project.levels) == 4
-    window.delete_level_action.trigger()
-    window.insert_level_action.trigger()
-    window.add_level_action.trigger()
+    window.levels.delete_level_action.trigger()
+    window.levels.insert_level_action.trigger()
+    window.levels.add_level_action.trigger()
     settle(window)
     for _ in range(4):
-        window.undo_action.trigger()
+        window.edits.undo_action.trigger()
     assert window.document.project == start
     renamed = replace(start.levels[0], name="Ground")
     window.document.set_current_level(1)

@@ -94,7 +94,7 @@ def test_an_unstable_layout_shows_its_diagnostic_on_the_canvas(qtbot, tmp_path):
     assert window.status.analysis.text().startswith("Unstable")
 
     # Adding a frame in x makes it stable again, and the diagnostic goes away.
-    window.set_tool("place-braced_frame")
+    window.drawing.set_tool("place-braced_frame")
     drag(window, (15.0, 0.0), (21.0, 0.0))
     assert window.plan_view.diagnostic_text() is None
     assert window.readouts.torsion_values() is not None

@@ -259,7 +259,7 @@ def test_through_the_main_window(qtbot, tmp_path):
     from tests.test_gui_support import drag, make_window, settle
 
     window = make_window(qtbot, tmp_path)
-    window.open_sample(bundled("residential_8_storey_walls"), confirm=False)
+    window.files.open_sample(bundled("residential_8_storey_walls"), confirm=False)
     settle(window)
     panel = window.findChild(ModeViewsPanel)
     dock = window.findChild(QDockWidget, "modeShapesPanel")
@@ -284,7 +284,7 @@ def test_through_the_main_window(qtbot, tmp_path):
 
     window.document.set_current_level(2)
     window.document.set_current_level(1)  # the editor is on level 1: the motion plan follows
-    window.set_tool("select")
+    window.drawing.set_tool("select")
     wall = window.document.project.element("W1")  # (20, 0)–(26, 0)
     drag(window, (23.0, 0.0), (23.0, 2.0))
     moved = window.document.project.element("W1")

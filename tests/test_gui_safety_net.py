@@ -15,7 +15,7 @@ def test_an_unexpected_error_saves_the_work_and_keeps_the_window(qtbot, tmp_path
     window = make_window(qtbot, tmp_path)
     path = tmp_path / "office.poise"
     save_project(window.document.project, path)
-    window.open_file(path, confirm=False)
+    window.files.open_file(path, confirm=False)
     shown = []
     monkeypatch.setattr(QMessageBox, "critical", lambda parent, title, text: shown.append(text))
     monkeypatch.setattr(sys, "excepthook", sys.excepthook)  # restored after the test

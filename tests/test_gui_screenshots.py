@@ -18,7 +18,7 @@ SCREENSHOTS = Path(__file__).parent / "screenshots"
 def test_screenshot_of_each_sample(qtbot, tmp_path, path):
     window = make_window(qtbot, tmp_path)
     window.resize(1600, 1000)
-    assert window.open_sample(path, confirm=False)
+    assert window.files.open_sample(path, confirm=False)
     settle(window)
     window.plan_view.fit()
     settle(window)

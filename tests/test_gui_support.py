@@ -19,7 +19,7 @@ def make_window(qtbot, tmp_path: Path, project: Project | None = None) -> MainWi
     """A shown main window with its own settings file; closing it never asks a question."""
     settings = QSettings(str(tmp_path / "poise-test.ini"), QSettings.Format.IniFormat)
     window = MainWindow(settings=settings)
-    window.ask_unsaved = lambda: "discard"
+    window.files.ask_unsaved = lambda: "discard"
     qtbot.addWidget(window)
     window.resize(1400, 900)
     window.show()

@@ -13,10 +13,10 @@ def test_undo_restores_exactly_and_redo_reapplies(qtbot, tmp_path):
     document = window.document
     states = [document.project]
 
-    window.set_tool("place-shear_wall")
+    window.drawing.set_tool("place-shear_wall")
     drag(window, (10.0, 18.0), (10.0, 12.0))  # a wall, one step
     states.append(document.project)
-    window.set_tool("select")
+    window.drawing.set_tool("select")
     drag(window, (18.0, 0.0), (24.0, 0.0))  # move B3 by its middle, one step
     states.append(document.project)
     window.plan_view.setFocus()
@@ -24,20 +24,20 @@ def test_undo_restores_exactly_and_redo_reapplies(qtbot, tmp_path):
         QTest.keyClick(window.plan_view, Qt.Key.Key_Up)  # four nudges of B3: one step
     settle(window)
     states.append(document.project)
-    window.add_level_action.trigger()
+    window.levels.add_level_action.trigger()
     states.append(document.project)
     window.document.select(["B1"])
-    window.delete_action.trigger()
+    window.edits.delete_action.trigger()
     states.append(document.project)
 
     assert document.undo_stack.count() == len(states) - 1
     assert document.project.element("B3").start == (21.0, 4.0)
     for expected in reversed(states[:-1]):
-        window.undo_action.trigger()
+        window.edits.undo_action.trigger()
         assert document.project == expected
     assert document.project is states[0] or document.project == states[0]
     for expected in states[1:]:
-        window.redo_action.trigger()
+        window.edits.redo_action.trigger()
         assert document.project == expected
 
 
@@ -45,10 +45,10 @@ def test_modified_marker_follows_the_undo_stack(qtbot, tmp_path):
     window = make_window(qtbot, tmp_path, balanced_box())
     assert not window.isWindowModified()
     window.document.select(["B2"])
-    window.rotate_action.trigger()
+    window.edits.rotate_action.trigger()
     assert window.isWindowModified()
     assert "[*]" in window.windowTitle()
-    window.undo_action.trigger()
+    window.edits.undo_action.trigger()
     assert not window.isWindowModified()
 
 
