@@ -158,3 +158,33 @@ def test_analyse_uses_one_session_and_gives_equal_results() -> None:
     )
     for project in (first, moved, generated_building(5, 20, seed=9), first):
         assert_same(project, analyse(project), outcome(AnalysisSession(), project))
+
+
+def test_a_failure_part_way_leaves_the_next_analysis_exact(monkeypatch) -> None:
+    """An unexpected error half-way through updating the storey matrices (the moved element's old
+    rows taken out, its new ones not yet in) makes the session forget what it kept, so the next
+    state is analysed as from cold."""
+    import core.engine.session as session_module
+
+    project = generated_building(3, 12)
+    session = AnalysisSession()
+    session.analyse(project)
+    moved = replace_element(project, 0, dataclasses.replace(project.elements[0], start=(2.0, 2.0), end=(6.0, 2.0)))
+    real = session_module._storey_slice
+    calls = []
+
+    def failing_on_the_third_call(element):
+        calls.append(element.id)
+        if len(calls) == 3:  # 1: the fresh rows, 2: the old rows out, 3: the new rows in
+            raise FloatingPointError("injected")
+        return real(element)
+
+    monkeypatch.setattr(session_module, "_storey_slice", failing_on_the_third_call)
+    try:
+        session.analyse(moved)
+    except FloatingPointError:
+        pass
+    monkeypatch.setattr(session_module, "_storey_slice", real)
+    assert len(calls) == 3
+    again = replace_element(moved, 1, dataclasses.replace(moved.elements[1], properties=ShearWall(thickness=0.3)))
+    assert_same(again, outcome(session, again), outcome(AnalysisSession(), again))

@@ -77,11 +77,14 @@ class AnalysisSession:
 
     def __init__(self) -> None:
         self._lock = threading.Lock()
+        self._forget()
+
+    def _forget(self) -> None:
+        """Drop everything kept: the next analysis starts cold."""
         self._levels: tuple[Level, ...] = ()
         self._floors: tuple[FloorMass, ...] = ()
         self._kept: dict[str, KeptElement] = {}
         self._K: FloatArray = np.zeros((0, 0))
-        self._order: tuple[str, ...] = ()
         self._updates = 0
         self._layout = LayoutMemo()
         self._floors_before: tuple[FloorMass, ...] = ()
@@ -95,12 +98,23 @@ class AnalysisSession:
     def analyse(self, project: Project) -> Results:
         """Masses, stiffness and modes of ``project``; raises AnalysisError if it cannot stand."""
         with self._lock, one_blas_thread():
+            return self._guarded(project)
+
+    def _guarded(self, project: Project) -> Results:
+        """:meth:`_analyse`; an unexpected failure part-way may leave the kept state half
+        updated, so the session then forgets everything and the next call starts cold."""
+        try:
             return self._analyse(project)
+        except AnalysisError:
+            raise  # raised before the kept state changes, or after it is consistent again
+        except BaseException:
+            self._forget()
+            raise
 
     def analyse_keeping(self, project: Project) -> tuple[Results, list[KeptElement]]:
         """:meth:`analyse`, and what the session keeps of each element (for the what-if)."""
         with self._lock, one_blas_thread():
-            results = self._analyse(project)
+            results = self._guarded(project)
             return results, [self._kept[e.id] for e in project.elements]
 
     def _analyse(self, project: Project) -> Results:
@@ -197,7 +211,7 @@ class AnalysisSession:
                 dofs = _dofs(entry.floors)
                 K[dofs, dofs] += entry.block
             self._updates += len(changed) + len(removed)
-        self._K, self._order = K, order
+        self._K = K
         # Kept until the storey matrices take them out (an analysis may stop before it gets there).
         self._replaced += removed + [self._kept[e.element.id] for e in changed if e.element.id in self._kept]
         self._kept = {entry.element.id: entry for entry in kept}
