@@ -230,10 +230,11 @@ def mass_ratios(masses: FloatArray) -> FloatArray:
 
 
 def element_shares(shears: FloatArray, along_load: FloatArray, storey_shears: FloatArray) -> FloatArray:
-    """(cases, storeys) share of the storey shear: the element shear's component along the load
-    over the case's storey shear (both signed, so a share is positive when the element helps)."""
+    """(…, cases, storeys) share of the storey shear: the element shear's component along the load
+    over the case's storey shear (both signed, so a share is positive when the element helps).
+    ``along_load`` is (…, cases); leading axes are elements."""
     with np.errstate(divide="ignore", invalid="ignore"):
-        share = shears * along_load[:, None] / storey_shears
+        share = shears * along_load[..., None] / storey_shears
     return np.where(np.isfinite(share), share, 0.0)
 
 

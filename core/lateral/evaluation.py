@@ -46,7 +46,7 @@ from core.lateral.records import (
     StoreyLateral,
 )
 from core.model import BracedFrame, Element, Project
-from core.solve.assembly import FloorMass, element_matrix, element_storey_heights
+from core.solve.assembly import FloorMass, element_matrix
 from core.solve.modal import Mode
 
 StoreyMatrices = Callable[[FloatArray], FloatArray]
@@ -302,43 +302,80 @@ def element_demands(
     if np.any(above_base):
         line -= np.where(above_base[:, None], along(np.maximum(bottom, 0)), 0.0)
     first = np.concatenate([[0], np.cumsum(counts)])
-    return tuple(
-        _element_demand(project, e, k, line[first[i] : first[i + 1]], cases)
-        for i, (e, k) in enumerate(zip(project.elements, matrices, strict=True))
-    )
+    groups: dict[tuple[int, int], list[int]] = {}
+    for i, e in enumerate(project.elements):
+        groups.setdefault((e.bottom, e.top), []).append(i)
+    demands: list[ElementDemand | None] = [None] * len(project.elements)
+    for (bottom_level, top_level), members in groups.items():
+        spanned = slice(bottom_level, top_level)
+        group_lines = np.stack([line[first[i] : first[i + 1]] for i in members])  # (G, storeys, cases)
+        for i, demand in zip(
+            members,
+            _span_group_demands(
+                project,
+                [project.elements[i] for i in members],
+                np.stack([matrices[i] for i in members]),
+                group_lines,
+                cases,
+                spanned,
+            ),
+            strict=True,
+        ):
+            demands[i] = demand
+    return tuple(d for d in demands if d is not None)
 
 
-def _element_demand(
-    project: Project, element: Element, k: FloatArray, line: FloatArray, cases: tuple[CaseResult, ...]
-) -> ElementDemand:
-    """One element's demand from ``line`` (storeys, cases): its floors' displacements along its
-    line relative to its bottom."""
-    floor_forces = k @ line
-    shears = floor_forces[::-1].cumsum(axis=0)[::-1].T  # (cases, storeys)
-    c, s = element.direction
-    along = np.array([c if r.case.direction == "x" else s for r in cases])
-    spanned = slice(element.bottom, element.top)
-    storey_shears = np.array([r.storey_shears[spanned] for r in cases])
+def _span_group_demands(
+    project: Project,
+    elements: list[Element],
+    matrices: FloatArray,
+    lines: FloatArray,
+    cases: tuple[CaseResult, ...],
+    spanned: slice,
+) -> list[ElementDemand]:
+    """The demands of elements that span the same storeys, together: ``matrices`` (G, n, n) and
+    ``lines`` (G, n, cases), their floors' displacements along their lines relative to their bottom."""
+    n = matrices.shape[1]
+    floor_forces = matrices @ lines  # (G, n, cases): one product per element
+    shears = np.ascontiguousarray(floor_forces[:, ::-1].cumsum(axis=1)[:, ::-1].transpose(0, 2, 1))  # (G, cases, n)
+    directions = np.array([e.direction for e in elements], dtype=float)
+    axis = np.array([0 if r.case.direction == "x" else 1 for r in cases], dtype=int)
+    along = directions[:, axis]  # (G, cases)
+    storey_shears = np.array([r.storey_shears[spanned] for r in cases]).reshape(len(cases), n)
     shares = element_shares(shears, along, storey_shears)
-    heights = element_storey_heights(project, element)
-    z = np.cumsum(heights)
-    base_moment = np.abs(z @ floor_forces).max() if len(cases) else 0.0
-    n = element.storey_count
-    braces = np.zeros((n, 0))
-    if isinstance(element.properties, BracedFrame) and len(cases):
-        # Rounded to 1 µm like the element cache, so a drag's rounding noise still hits the cache.
-        influence = brace_influence(element.properties, round(element.length, 6), heights)
-        braces = np.abs(np.einsum("sbf,fc->csb", influence, line)).max(axis=0)
-    return ElementDemand(
-        element=element.id,
-        storeys=tuple(range(element.bottom + 1, element.top + 1)),
-        shears=frozen_array(shears),
-        shares=frozen_array(shares),
-        shear_envelope=frozen_array(np.abs(shears).max(axis=0) if len(cases) else np.zeros(n)),
-        share_envelope=frozen_array(shares.max(axis=0) if len(cases) else np.zeros(n)),
-        brace_force_envelope=frozen_array(braces),
-        base_moment_envelope=float(base_moment),
-    )
+    z = np.cumsum([level.height for level in project.levels[spanned]])
+    if len(cases):
+        base_moments = np.abs(np.einsum("f,gfc->gc", z, floor_forces)).max(axis=1).tolist()
+        shear_envelopes = np.abs(shears).max(axis=1)
+        share_envelopes = shares.max(axis=1)
+    else:
+        base_moments = [0.0] * len(elements)
+        shear_envelopes = share_envelopes = np.zeros((len(elements), n))
+    for array in (shears, shares, shear_envelopes, share_envelopes):
+        array.setflags(write=False)  # each element's arrays are read-only views of these
+    heights = tuple(level.height for level in project.levels[spanned])
+    storeys = tuple(range(spanned.start + 1, spanned.stop + 1))
+    out = []
+    for g, element in enumerate(elements):
+        braces = np.zeros((n, 0))
+        if isinstance(element.properties, BracedFrame) and len(cases):
+            # Rounded to 1 µm like the element cache, so a drag's rounding noise still hits the cache.
+            influence = brace_influence(element.properties, round(element.length, 6), heights)
+            braces = np.abs(np.einsum("sbf,fc->csb", influence, lines[g])).max(axis=0)
+        braces.setflags(write=False)
+        out.append(
+            ElementDemand(
+                element=element.id,
+                storeys=storeys,
+                shears=shears[g],
+                shares=shares[g],
+                shear_envelope=shear_envelopes[g],
+                share_envelope=share_envelopes[g],
+                brace_force_envelope=braces,
+                base_moment_envelope=base_moments[g],
+            )
+        )
+    return out
 
 
 @lru_cache(maxsize=512)
