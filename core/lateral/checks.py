@@ -160,22 +160,29 @@ def case_results(
         corner = np.abs(storey_drifts(U, centres, vertices, d)).max(axis=-1)
         ratios = end_ratio(end_drifts)
         amplified = amplification(end_disp)
+        # All cases of the direction at once; each CaseResult holds read-only views of these.
+        scale = np.asarray(base_shears, dtype=float)[index]
+        signs = np.array([cases[i].sign for i in index], dtype=float)
+        forces = (signs * scale)[:, None] * unit_forces[index]
+        arrays = {
+            "forces": forces,
+            "application_points": centres + offsets[index],
+            "displacements": scale[:, None, None] * U,
+            "storey_shears": forces[:, ::-1].cumsum(axis=1)[:, ::-1],
+            "drifts": scale[:, None] * drifts,
+            "end_drifts": scale[:, None, None] * end_drifts,
+            "torsion_ratio": ratios,
+            "end_displacements": scale[:, None, None] * end_disp,
+            "amplification": amplified,
+            "corner_drifts": scale[:, None] * corner,
+        }
+        for name, array in arrays.items():
+            arrays[name] = np.ascontiguousarray(array)
+            arrays[name].setflags(write=False)
+        end_points = frozen_array(ends)
         for row, i in enumerate(index):
-            case, scale = cases[i], float(base_shears[i])
-            forces = case.sign * scale * unit_forces[i]
             out[i] = CaseResult(
-                case=case,
-                forces=frozen_array(forces),
-                application_points=frozen_array(centres + offsets[i]),
-                displacements=frozen_array(scale * U[row]),
-                storey_shears=frozen_array(forces[::-1].cumsum()[::-1]),
-                drifts=frozen_array(scale * drifts[row]),
-                end_drifts=frozen_array(scale * end_drifts[row]),
-                end_points=frozen_array(ends),
-                torsion_ratio=frozen_array(ratios[row]),
-                end_displacements=frozen_array(scale * end_disp[row]),
-                amplification=frozen_array(amplified[row]),
-                corner_drifts=frozen_array(scale * corner[row]),
+                case=cases[i], end_points=end_points, **{name: array[row] for name, array in arrays.items()}
             )
     return tuple(r for r in out if r is not None)
 

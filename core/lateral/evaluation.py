@@ -83,7 +83,9 @@ def lateral_checks(
         *(case_load_vector(c, patterns[a], eccentricity) for c, a in zip(all_cases, axis, strict=True)),
         strict=True,
     )
-    unit = cho_solve(cho_factor(K), np.column_stack(vectors))  # (3N, cases), 1 kN base shear each
+    # K passed check_stiffness, so it is finite: scipy need not scan it again.
+    factor = cho_factor(K, check_finite=False)
+    unit = cho_solve(factor, np.column_stack(vectors), check_finite=False)  # (3N, cases), 1 kN base shear each
     unit_cases = unit.T.reshape(len(all_cases), n, 3)
     results = case_results(
         all_cases,
