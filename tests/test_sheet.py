@@ -356,3 +356,34 @@ def test_views_offered_for_png_include_the_canvas_and_mode_views(window, tmp_pat
     for label, widget in window.exchange.views():
         image = export_png(widget, tmp_path / "v.png", scale=1.0)
         assert not image.isNull(), label
+
+
+def test_print_preview_opens_renders_a_page_and_closes(window, monkeypatch):
+    """File › Preview sheet… opened a dialog whose printer Python had already freed: the first paint
+    crashed the process. The preview must paint a page (after a garbage collection) and close."""
+    import gc
+
+    from PySide6.QtCore import QTimer
+    from PySide6.QtPrintSupport import QPrintPreviewDialog, QPrintPreviewWidget
+    from PySide6.QtWidgets import QApplication
+
+    monkeypatch.setattr("app.exchange.actions.SheetOptionsDialog.exec", lambda self: 1)
+    seen: dict[str, int] = {}
+
+    def inspect_and_close() -> None:
+        dialog = next((w for w in QApplication.topLevelWidgets()
+                       if isinstance(w, QPrintPreviewDialog) and w.isVisible()), None)
+        if dialog is None:
+            QTimer.singleShot(20, inspect_and_close)
+            return
+        gc.collect()
+        preview = dialog.findChild(QPrintPreviewWidget)
+        preview.updatePreview()
+        QApplication.processEvents()
+        seen["pages"] = preview.pageCount()
+        dialog.grab()  # paint the page on screen
+        dialog.reject()
+
+    QTimer.singleShot(0, inspect_and_close)
+    window.exchange.preview_action.trigger()
+    assert seen.get("pages") == 1

@@ -17,6 +17,7 @@ from pathlib import Path
 from typing import Any
 
 import pyqtgraph as pg
+import shiboken6
 from PySide6.QtCore import QObject, QRectF
 from PySide6.QtGui import QAction, QKeySequence, QPainter
 from PySide6.QtPrintSupport import QPrintDialog, QPrinter, QPrintPreviewDialog
@@ -166,7 +167,12 @@ class ExchangeActions(QObject):
             return
         self.analysed()  # refuse before the print dialog if there is nothing to print
         printer = self.printer(options)
-        if QPrintDialog(printer, self.window).exec() == QDialog.DialogCode.Accepted:
+        dialog = QPrintDialog(printer, self.window)
+        try:
+            accepted = dialog.exec() == QDialog.DialogCode.Accepted
+        finally:
+            shiboken6.delete(dialog)  # gone before the printer it refers to
+        if accepted:
             self.paint_sheet(printer, options)
 
     def preview_sheet(self) -> None:
@@ -174,11 +180,17 @@ class ExchangeActions(QObject):
         if options is None:
             return
         self.analysed()
-        dialog = QPrintPreviewDialog(self.printer(options), self.window)
+        # The dialog paints on this printer for its whole life; a temporary freed by Python
+        # crashes the process at the first paint, so a local that outlives exec() holds it.
+        printer = self.printer(options)
+        dialog = QPrintPreviewDialog(printer, self.window)
         dialog.paintRequested.connect(
-            lambda printer: self._guarded("Preview sheet", lambda: self.paint_sheet(printer, options))
+            lambda target: self._guarded("Preview sheet", lambda: self.paint_sheet(target, options))
         )
-        dialog.exec()
+        try:
+            dialog.exec()
+        finally:
+            shiboken6.delete(dialog)  # gone before the printer it paints on
 
     # ------------------------------------------------------------------ DXF underlay
 
