@@ -168,3 +168,28 @@ def test_underlay_is_shown_locked_and_snappable(qtbot, tmp_path):
     assert (element.start, element.end) == ((5.37, 3.11), (14.52, 3.11))
     window.document.set_current_level(1)
     assert window.document.underlay(2) == []
+
+
+@pytest.mark.parametrize("steps", [1, -1, 3])
+def test_wheel_zoom_keeps_the_point_under_the_cursor(qtbot, tmp_path, steps):
+    """A wheel step zooms about the cursor: the plan point under it stays there to a pixel."""
+    from PySide6.QtCore import QPoint, QPointF
+    from PySide6.QtGui import QWheelEvent
+    from PySide6.QtWidgets import QApplication
+
+    from tests.test_gui_support import balanced_box, make_window, view_point
+
+    window = make_window(qtbot, tmp_path, balanced_box())
+    view = window.plan_view
+    for x, y in [(3.0, 2.0), (30.0, 15.0)]:  # one move first, then the point the wheel turns at
+        pos = view_point(window, x, y)
+        QTest.mouseMove(view.viewport(), pos)
+    before = view.to_plan(QPointF(pos))
+    pixel_before = view.pixel
+    wheel = QWheelEvent(QPointF(pos), QPointF(view.viewport().mapToGlobal(pos)), QPoint(0, 0), QPoint(0, 120 * steps),
+                        Qt.MouseButton.NoButton, Qt.KeyboardModifier.NoModifier, Qt.ScrollPhase.NoScrollPhase, False)
+    QApplication.sendEvent(view.viewport(), wheel)
+    assert view.pixel != pytest.approx(pixel_before)
+    after = view.to_plan(QPointF(pos))
+    assert abs(after[0] - before[0]) <= 1.01 * max(view.pixel, pixel_before)
+    assert abs(after[1] - before[1]) <= 1.01 * max(view.pixel, pixel_before)

@@ -143,10 +143,19 @@ class PlanView(QGraphicsView):
         self._targets_key = None
         self.viewport().update()
 
-    def zoom_by(self, factor: float) -> None:
+    def zoom_by(self, factor: float, about: QPointF | None = None) -> None:
+        """Zoom by ``factor`` keeping the plan point at ``about`` (viewport pixels; default the
+        centre) where it is on screen."""
         scale = abs(self.transform().m11())
         factor = max(MIN_SCALE / scale, min(MAX_SCALE / scale, factor))
+        anchor = (about if about is not None else QPointF(self.viewport().rect().center())).toPoint()
+        fixed = self.mapToScene(anchor)
+        self.setTransformationAnchor(QGraphicsView.ViewportAnchor.NoAnchor)
         self.scale(factor, factor)
+        self.setTransformationAnchor(QGraphicsView.ViewportAnchor.AnchorUnderMouse)
+        moved = self.mapFromScene(fixed) - anchor
+        self.horizontalScrollBar().setValue(self.horizontalScrollBar().value() + moved.x())
+        self.verticalScrollBar().setValue(self.verticalScrollBar().value() + moved.y())
         self._zoom_changed()
 
     def fit(self, rect: QRectF | None = None) -> None:
@@ -163,7 +172,7 @@ class PlanView(QGraphicsView):
     def wheelEvent(self, event: QWheelEvent) -> None:
         steps = event.angleDelta().y() / 120.0
         if steps:
-            self.zoom_by(ZOOM_STEP**steps)
+            self.zoom_by(ZOOM_STEP**steps, event.position())
         event.accept()
 
     def _pan(self, view_pos: QPointF) -> None:
@@ -197,6 +206,7 @@ class PlanView(QGraphicsView):
             self.tool.press(self._plan_event(event))
 
     def mouseMoveEvent(self, event: QMouseEvent) -> None:
+        super().mouseMoveEvent(event)  # the base view keeps the cursor's scene point for its anchors
         if self._pan_from is not None:
             self._pan(event.position())
             return
