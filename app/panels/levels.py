@@ -1,9 +1,9 @@
 """The levels panel: a to-scale elevation strip of the building and the current level's fields.
 
 Each storey is a band whose height is proportional to the storey height; the floor at its top is
-a slab line. Two chips on each band show the storey's worst torsion figure and drift ratio,
-coloured by the active rule set's verdict. Clicking a band makes that level current; the context
-menu holds the level commands (add, insert, duplicate with elements, delete).
+a slab line. Two chips on each band show the storey's torsion ratio and judged drift ratio, each
+coloured only by its own check (grey where the code limits do not judge it). Clicking a band
+makes that level current; the context menu holds the level commands (add, insert, duplicate with elements, delete).
 """
 
 from __future__ import annotations
@@ -28,6 +28,7 @@ from PySide6.QtWidgets import QHBoxLayout, QLabel, QMenu, QSizePolicy, QToolButt
 from app.canvas import style
 from app.commands import replace_level
 from app.document import ProjectDocument
+from app.figures import drift_text
 from app.panels.fields import FieldForm, Row
 from app.panels.verdicts import colour_of, storey_state
 from app.units import AREA_LOAD, LENGTH
@@ -124,11 +125,16 @@ class LevelStrip(QWidget):
         if results is not None and number <= len(results.floors):
             s = results.lateral.storey(number)
             lines.append(f"mass {results.floors[number - 1].mass:.1f} t")
-            lines.append(f"torsion ratio x {s.torsion_ratio[0]:.3f}, y {s.torsion_ratio[1]:.3f}")
-            lines.append(f"drift ratio x {s.drift_ratio[0]:.4f}, y {s.drift_ratio[1]:.4f} (at the mass centre)")
+            lateral = results.lateral
+            elastic = [d / lateral.drift_amplification for d in s.drift_ratio]
+            lines.append(f"torsion ratio δmax/δavg x {s.torsion_ratio[0]:.3f}, y {s.torsion_ratio[1]:.3f}")
+            lines.append(f"design drift ratio x {drift_text(s.drift_ratio[0])}, y {drift_text(s.drift_ratio[1])} "
+                         f"(d_r/h at the mass centre)")
+            lines.append(f"elastic drift ratio x {drift_text(elastic[0])}, y {drift_text(elastic[1])} "
+                         f"(d_r = {lateral.drift_amplification:g} × elastic)")
         lines.append(
-            "<small>Chips: worst torsion ratio and design drift ratio of the storey, coloured by the "
-            "worst torsion and drift checks of the rule set (grey: not judged).</small>"
+            f"<small>Chips: the storey's torsion ratio δmax/δavg and its judged drift ({self._drift_word()}), "
+            "each coloured by its own check of the code limits (grey: not judged).</small>"
         )
         return "<br>".join(lines)
 
@@ -211,13 +217,19 @@ class LevelStrip(QWidget):
     def _draw_header(self, painter: QPainter, band: QRectF) -> None:
         painter.setFont(QFont("DejaVu Sans", 7))
         painter.setPen(QColor("#6d695f"))
-        for box, text in zip(self._chip_boxes(band), ("torsion", "drift"), strict=True):
+        for box, text in zip(self._chip_boxes(band), ("δmax/δavg", self._drift_word()), strict=True):
             painter.drawText(
                 QRectF(box.left() - 6, 0, box.width() + 12, TOP_PIXELS), Qt.AlignmentFlag.AlignCenter, text
             )
 
+    def _drift_word(self) -> str:
+        """What the drift chip shows: the drift the code limits judge (ν·d_r/h under a reduction)."""
+        results = self.document.results
+        reduced = results is not None and results.lateral.drift_reduction != 1.0
+        return "ν·d_r/h" if reduced else "d_r/h"
+
     def _draw_chips(self, painter: QPainter, band: QRectF, state) -> None:
-        texts = [f"{state.torsion_ratio:.2f}", f"{100 * state.drift_ratio:.2f} %"]
+        texts = [f"{state.torsion_ratio:.2f}", drift_text(state.drift_ratio)]
         statuses = [state.torsion_status, state.drift_status]
         painter.setFont(QFont("DejaVu Sans", 7))
         for box, text, status in zip(self._chip_boxes(band), texts, statuses, strict=True):

@@ -17,6 +17,7 @@ from PySide6.QtWidgets import QLabel, QScrollArea, QToolTip, QVBoxLayout, QWidge
 
 from app.canvas import style
 from app.document import ProjectDocument
+from app.figures import verdict_figures
 from app.panels.results import CAUTION, fmt_number, mode_type
 from app.panels.verdicts import STATUS_WORDS, check_summaries, colour_of
 from core.lateral.records import TORSION_RATIO
@@ -268,9 +269,8 @@ class ReadoutsPanel(QWidget):
         for summary in check_summaries(lateral):
             v = summary.worst
             where = ", ".join(p for p in (f"storey {v.storey}" if v.storey is not None else "", v.direction or "") if p)
-            detail = (
-                f"{fmt_number(v.value)} vs {fmt_number(v.limit)}" + (f" ({where})" if where else "") + f" · {v.clause}"
-            )
+            value, limit = verdict_figures(v)
+            detail = f"{value} vs {limit}" + (f" ({where})" if where else "") + f" · {v.clause}"
             tip = f"<b>{summary.name}</b><br>{v.clause}<br>{v.note}<br>{summary.flagged} of {summary.count} flagged"
             rows.append(Row("check", (STATUS_WORDS[v.status], summary.name, detail), colour_of(v.status), tip))
         self.board.set_rows(rows)

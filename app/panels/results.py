@@ -84,10 +84,10 @@ def storeys_table(results: Results) -> tuple[list[str], list[list[str]]]:
         "e0y/r_y",
         "r_x/l_s",
         "r_y/l_s",
-        "TR x",
-        "TR y",
-        "drift x %",
-        "drift y %",
+        "δmax/δavg x",
+        "δmax/δavg y",
+        "design drift x %",
+        "design drift y %",
     ]
     rows = []
     for s in results.lateral.storeys:
@@ -112,8 +112,8 @@ def storeys_table(results: Results) -> tuple[list[str], list[list[str]]]:
                 fmt_number(s.radius_ratio[1]),
                 fmt_number(s.torsion_ratio[0]),
                 fmt_number(s.torsion_ratio[1]),
-                fmt_number(100 * s.drift_ratio[0], 3),
-                fmt_number(100 * s.drift_ratio[1], 3),
+                fmt_number(100 * s.drift_ratio[0], 2),
+                fmt_number(100 * s.drift_ratio[1], 2),
             ]
         )
     return headers, rows

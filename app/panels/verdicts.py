@@ -8,13 +8,8 @@ from dataclasses import dataclass
 from PySide6.QtGui import QColor
 
 from app.canvas import style
+from app.figures import DRIFT_CHECKS
 from core.lateral.records import STATUS_ORDER, TORSION_RATIO, LateralResults, Status, Verdict
-
-TORSION_CHECKS = frozenset(
-    {TORSION_RATIO, "eccentricity over torsional radius", "torsional radius over radius of gyration"}
-)
-"""Verdicts that say whether a storey twists too much, under either rule set."""
-DRIFT_CHECKS = frozenset({"storey drift ratio"})
 
 STATUS_COLOURS = {Status.PASS: style.PASS, Status.WARN: style.WARN, Status.FAIL: style.FAIL}
 STATUS_WORDS = {Status.PASS: "pass", Status.WARN: "warn", Status.FAIL: "fail"}
@@ -79,9 +74,11 @@ class StoreyState:
 
 
 def storey_state(lateral: LateralResults, storey: int) -> StoreyState:
+    """The storey's torsion ratio and judged drift, each coloured only by its own check (a torsion
+    ratio the rule set does not judge stays grey, whatever the storey's other torsion checks say)."""
     figures = lateral.storey(storey)
     mine = [v for v in lateral.verdicts if v.storey == storey]
-    torsion = worst(v for v in mine if v.name in TORSION_CHECKS)
+    torsion = worst(v for v in mine if v.name == TORSION_RATIO)
     drifts = [v for v in mine if v.name in DRIFT_CHECKS]
     drift = worst(drifts)
     drift_value = max((v.value for v in drifts), default=max(figures.drift_ratio))
@@ -91,3 +88,4 @@ def storey_state(lateral: LateralResults, storey: int) -> StoreyState:
         drift_value,
         drift.status if drift else None,
     )
+

@@ -11,6 +11,7 @@ import datetime as _dt
 import math
 from dataclasses import dataclass
 
+from app.figures import verdict_figures
 from core.lateral.records import DIRECTIONS, STATUS_ORDER, LateralResults, Status, Verdict
 from core.model import (
     BracedFrame,
@@ -218,7 +219,8 @@ _DIRECTION_ORDER = {"x": 0, "y": 1}
 def _building_text(verdict: Verdict) -> str:
     direction = f" ({verdict.direction})" if verdict.direction else ""
     note = f"; {verdict.note.rstrip('.')}" if verdict.note else ""
-    return f"{verdict.name}{direction}: {number_text(verdict.value)} against {number_text(verdict.limit)}{note}"
+    value, limit = verdict_figures(verdict)
+    return f"{verdict.name}{direction}: {value} against {limit}{note}"
 
 
 def number_text(value: float) -> str:

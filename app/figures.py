@@ -1,0 +1,46 @@
+"""How judged figures read on screen and on paper: drifts as percentages, mode numbers as
+integers, other figures to four significant figures, and a value never printed the same as the
+limit it differs from. Plain text only (no Qt), shared by the panels and the sheet."""
+
+from __future__ import annotations
+
+import math
+
+from core.lateral.records import Verdict
+
+DRIFT_CHECKS = frozenset({"storey drift ratio"})
+MODE_NUMBER_CHECKS = frozenset({"first rotational mode"})
+"""Verdicts whose value and limit are mode numbers (shown as integers)."""
+SIGNIFICANT = 4
+"""Significant figures of a judged figure (more only where value and limit would read the same)."""
+
+
+def drift_text(ratio: float, decimals: int = 2) -> str:
+    """A drift ratio as a percentage: 0.000791 → "0.08 %"."""
+    return f"{100 * ratio:.{decimals}f} %"
+
+
+def verdict_figures(verdict: Verdict) -> tuple[str, str]:
+    """The value and the limit of ``verdict`` as shown: drifts as percentages with two decimals,
+    mode numbers as integers, anything else with four significant figures. Where the value differs
+    from its limit, more digits are given until the two texts differ too (never "0.5 % vs 0.5 %")."""
+    value, limit = verdict.value, verdict.limit
+    if verdict.name in MODE_NUMBER_CHECKS and float(value).is_integer() and float(limit).is_integer():
+        return f"{value:.0f}", f"{limit:.0f}"
+    if not (math.isfinite(value) and math.isfinite(limit)):
+        return _general(value, SIGNIFICANT), _general(limit, SIGNIFICANT)
+    drift = verdict.name in DRIFT_CHECKS
+    for extra in range(8):
+        if drift:
+            texts = drift_text(value, 2 + extra), drift_text(limit, 2 + extra)
+        else:
+            texts = _general(value, SIGNIFICANT + extra), _general(limit, SIGNIFICANT + extra)
+        if texts[0] != texts[1] or value == limit:
+            break
+    return texts
+
+
+def _general(value: float, digits: int) -> str:
+    if math.isinf(value):
+        return "∞" if value > 0 else "−∞"
+    return f"{value:.{digits}g}"

@@ -1,0 +1,67 @@
+"""What first users misread: a figure coloured by another figure's check, drift figures without
+saying which drift, and a verdict printed as "0.005 vs 0.005 · fail"."""
+
+from __future__ import annotations
+
+import dataclasses
+
+import pytest
+
+from app.figures import verdict_figures
+from app.panels.verdicts import storey_state
+from app.resources import sample_path
+from core.analysis import analyse
+from core.lateral.records import TORSION_RATIO, Status, Verdict
+from core.model.fileio import load_project
+from core.model.settings import RuleSet
+from tests.test_gui_support import make_window
+
+
+def _verdict(name: str, value: float, limit: float, status: Status = Status.FAIL) -> Verdict:
+    return Verdict(name=name, value=value, limit=limit, status=status, clause="c", storey=1, direction="x", note="")
+
+
+@pytest.mark.parametrize("stem", ["residential_8_storey_walls", "office_5_storey_braced", "pavilion_1_storey"])
+def test_the_torsion_chip_is_coloured_only_by_the_torsion_ratio_check(stem):
+    lateral = analyse(load_project(sample_path(stem))).lateral
+    for storey in lateral.storeys:
+        judged = [v for v in lateral.verdicts if v.storey == storey.storey and v.name == TORSION_RATIO]
+        state = storey_state(lateral, storey.storey)
+        if not judged:
+            assert state.torsion_status is None  # grey: these limits do not judge this figure
+        else:
+            assert state.torsion_status is max((v.status for v in judged), key=lambda s: list(Status).index(s))
+
+
+def test_en1998_strip_shows_grey_torsion_chips():
+    project = load_project(sample_path("residential_8_storey_walls"))
+    project = dataclasses.replace(project, settings=dataclasses.replace(project.settings, rule_set=RuleSet.EN1998))
+    lateral = analyse(project).lateral
+    assert not any(v.name == TORSION_RATIO for v in lateral.verdicts)
+    assert all(storey_state(lateral, s.storey).torsion_status is None for s in lateral.storeys)
+
+
+def test_a_failing_value_never_reads_the_same_as_its_limit():
+    value, limit = verdict_figures(_verdict("storey drift ratio", 0.0050004, 0.005))
+    assert value != limit
+    value, limit = verdict_figures(_verdict("torsion ratio", 1.40004, 1.4))
+    assert value != limit
+
+
+def test_drift_figures_are_percentages_with_two_decimals_and_mode_numbers_integers():
+    assert verdict_figures(_verdict("storey drift ratio", 0.000791, 0.005, Status.PASS)) == ("0.08 %", "0.50 %")
+    assert verdict_figures(_verdict("first rotational mode", 3.0, 3.0, Status.PASS)) == ("3", "3")
+    assert verdict_figures(_verdict("torsion ratio", 1.234567, 1.2)) == ("1.235", "1.2")
+
+
+def test_every_drift_figure_on_screen_says_which_drift(qtbot, tmp_path):
+    window = make_window(qtbot, tmp_path, load_project(sample_path("residential_8_storey_walls")))
+    headers = window.tables.storeys.rows_model.headers
+    drift_headers = [h for h in headers if "drift" in h]
+    assert drift_headers and all("design" in h or "elastic" in h for h in drift_headers)
+    tip = window.levels_panel.strip._tooltip(1)
+    drift_line = next(line for line in tip.split("<br>") if line.startswith("design drift"))
+    assert "%" in drift_line and "elastic" in tip
+    board = window.readouts.text()
+    drift_lines = [line for line in board.splitlines() if "drift" in line and " vs " in line]
+    assert drift_lines and all("%" in line for line in drift_lines)
