@@ -6,10 +6,9 @@ from __future__ import annotations
 
 import math
 
-from core.lateral.records import Verdict
+from core.lateral.records import Check, Verdict
 
-DRIFT_CHECKS = frozenset({"storey drift ratio"})
-MODE_NUMBER_CHECKS = frozenset({"first rotational mode"})
+MODE_NUMBER_CHECKS = frozenset({Check.TORSION_MODE_ORDER})
 """Verdicts whose value and limit are mode numbers (shown as integers)."""
 SIGNIFICANT = 4
 """Significant figures of a judged figure (more only where value and limit would read the same)."""
@@ -29,7 +28,7 @@ def verdict_figures(verdict: Verdict) -> tuple[str, str]:
         return f"{value:.0f}", f"{limit:.0f}"
     if not (math.isfinite(value) and math.isfinite(limit)):
         return _general(value, SIGNIFICANT), _general(limit, SIGNIFICANT)
-    drift = verdict.name in DRIFT_CHECKS
+    drift = verdict.name is Check.DRIFT
     for extra in range(8):
         if drift:
             texts = drift_text(value, 2 + extra), drift_text(limit, 2 + extra)

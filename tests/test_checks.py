@@ -10,8 +10,8 @@ import pytest
 
 from core.analysis import analyse
 from core.lateral.centres import element_storey_stiffness
-from core.lateral.checks import amplification, end_ratio, mass_ratios, stiffness_ratios
-from core.lateral.records import TORSION_RATIO, Status
+from core.lateral.records import Check, Status
+from core.lateral.response import amplification, end_ratio, mass_ratios, stiffness_ratios
 from core.model import (
     GRAVITY,
     BracedFrame,
@@ -292,8 +292,8 @@ def test_mode_order_flags_a_torsionally_flexible_core():
     core = analyse(_four_springs(1.0)).lateral
     assert core.mode_order.first_torsion == 1
     assert core.mode_order.torsion_before_translation
-    flagged = [v for v in core.verdicts if v.name == "first rotational mode"]
-    assert flagged[0].status is Status.WARN and flagged[0].clause.startswith("common practice")
+    flagged = [v for v in core.verdicts if v.name is Check.TORSION_MODE_ORDER]
+    assert flagged[0].status is Status.WARN and flagged[0].clause.startswith("No code clause")
     # Period ratio: T_θ/T_y = √(J/m / (2d²)) for this layout (same k in every line).
     assert core.mode_order.period_ratio == pytest.approx(math.sqrt((400 / 6) / 2.0), rel=1e-9)
     perimeter = analyse(_four_springs(10.0)).lateral
@@ -329,6 +329,6 @@ def test_single_brace_force_is_storey_shear_over_cosine():
 def test_results_carry_sources_and_are_frozen():
     lateral = analyse(two_wall_building()).lateral
     assert lateral.verdicts and all(v.clause for v in lateral.verdicts)
-    assert {v.name for v in lateral.verdicts} >= {TORSION_RATIO, "storey drift ratio"}
+    assert {v.name for v in lateral.verdicts} >= {Check.TORSION_RATIO, Check.DRIFT}
     with pytest.raises(ValueError):
         lateral.cases[0].displacements[0, 0] = 1.0

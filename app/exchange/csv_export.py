@@ -13,7 +13,8 @@ from dataclasses import dataclass
 from pathlib import Path
 
 from app.exchange.errors import ExchangeError
-from core.lateral.records import DIRECTIONS, LateralResults
+from core.lateral.cases import DIRECTIONS
+from core.lateral.records import LateralResults
 from core.model import Project
 from core.results import Results
 

@@ -30,6 +30,7 @@ from app.units import (
     degrees_of,
 )
 from core.errors import ModelError
+from core.lateral.rules import registered_rule_sets, rules_for
 from core.model import (
     CONCRETE_E,
     STEEL_E,
@@ -41,7 +42,6 @@ from core.model import (
     Material,
     MomentFrame,
     Project,
-    RuleSet,
     ShearWall,
     Spring,
     SystemType,
@@ -213,6 +213,41 @@ def element_rows(project: Project, elements: list[Element]) -> list[Row]:
     return rows
 
 
+OWN_LIMIT = "own"
+"""The drift-limit choice that keeps the project's own value."""
+
+
+def drift_limit_rows(project: Project) -> list[Row]:
+    """The drift limits of the project's code limits to choose from, or the project's own value."""
+    rules = rules_for(project.settings)
+    choices = [(f"{r.ratio:.2%} · {r.label}", r.key) for r in rules.drift_limits] + [("own value", OWN_LIMIT)]
+
+    def read(p: Project) -> str:
+        return OWN_LIMIT if p.settings.drift_limit is not None else rules.drift_row(p.settings).key
+
+    def write(p: Project, key: str) -> Project:
+        if key == OWN_LIMIT:
+            settings = dataclasses.replace(p.settings, drift_limit=rules.drift_limit(p.settings).ratio)
+        else:
+            settings = dataclasses.replace(p.settings, drift_limit=None, drift_basis=key)
+        return dataclasses.replace(p, settings=settings)
+
+    rows = [
+        Row(
+            "Drift limit",
+            "settings.drift_basis",
+            "choice",
+            choices=choices,
+            getter=read,
+            setter=write,
+            tip="; ".join(f"{r.ratio:g}·h: {r.label} ({r.clause})" for r in rules.drift_limits),
+        )
+    ]
+    if project.settings.drift_limit is not None:
+        rows.append(Row("Own drift limit", "settings.drift_limit", "number", DRIFT, tip="Storey drift over height."))
+    return rows
+
+
 def project_rows(project: Project) -> list[Row]:
     """Rows for the project's description and analysis settings (spectrum rows by load method)."""
     s = project.settings
@@ -225,7 +260,7 @@ def project_rows(project: Project) -> list[Row]:
             "Judge by",
             "settings.rule_set",
             "choice",
-            choices=[("EN 1998-1 limits", RuleSet.EN1998), ("ASCE 7 limits", RuleSet.ASCE7)],
+            choices=[(f"{r.title} limits", r.name) for r in registered_rule_sets()],
             tip="Which code's limits give pass / warn / fail; both sets of figures are computed.",
         ),
         Row(
@@ -285,8 +320,7 @@ def project_rows(project: Project) -> list[Row]:
             PERCENT,
             tip="Share of the plan dimension across the load (EN 1998-1 §4.3.2, ASCE 7 §12.8.4.2: 5 %).",
         ),
-        Row("Drift limit", "settings.drift_limit", "number", DRIFT, tip="Storey drift over storey height."),
-        Row("Damping", "settings.damping_ratio", "number", PERCENT),
+        *drift_limit_rows(project),
         Row("Centred load cases", "settings.include_centred_case", "check", tip="Add the cases without eccentricity."),
     ]
     return rows

@@ -20,7 +20,7 @@ from app.document import ProjectDocument
 from app.figures import verdict_figures
 from app.panels.results import CAUTION, fmt_number, mode_type
 from app.panels.verdicts import STATUS_WORDS, check_summaries, colour_of
-from core.lateral.records import TORSION_RATIO
+from core.lateral.records import Check
 
 GREY = QColor("#6d695f")
 HEADING = QFont("DejaVu Sans", 9, QFont.Weight.Bold)
@@ -240,7 +240,7 @@ class ReadoutsPanel(QWidget):
             self.board.set_rows(rows)
             return
         lateral = results.lateral
-        judged = [v for v in lateral.verdicts if v.name == TORSION_RATIO]
+        judged = [v for v in lateral.verdicts if v.name is Check.TORSION_RATIO]
         texts: list[str] = []
         colours = []
         for i, d in enumerate(("x", "y")):
@@ -263,7 +263,7 @@ class ReadoutsPanel(QWidget):
         rows.append(
             Row(
                 "heading",
-                ("Checks", f"{lateral.rule_set.upper()} limits · worst storey · overall {STATUS_WORDS[overall]}"),
+                ("Checks", f"{lateral.rule_set_title} limits · worst storey · overall {STATUS_WORDS[overall]}"),
             )
         )
         for summary in check_summaries(lateral):

@@ -8,8 +8,7 @@ from dataclasses import dataclass
 from PySide6.QtGui import QColor
 
 from app.canvas import style
-from app.figures import DRIFT_CHECKS
-from core.lateral.records import STATUS_ORDER, TORSION_RATIO, LateralResults, Status, Verdict
+from core.lateral.records import STATUS_ORDER, Check, LateralResults, Status, Verdict
 
 STATUS_COLOURS = {Status.PASS: style.PASS, Status.WARN: style.WARN, Status.FAIL: style.FAIL}
 STATUS_WORDS = {Status.PASS: "pass", Status.WARN: "warn", Status.FAIL: "fail"}
@@ -78,8 +77,8 @@ def storey_state(lateral: LateralResults, storey: int) -> StoreyState:
     ratio the rule set does not judge stays grey, whatever the storey's other torsion checks say)."""
     figures = lateral.storey(storey)
     mine = [v for v in lateral.verdicts if v.storey == storey]
-    torsion = worst(v for v in mine if v.name == TORSION_RATIO)
-    drifts = [v for v in mine if v.name in DRIFT_CHECKS]
+    torsion = worst(v for v in mine if v.name is Check.TORSION_RATIO)
+    drifts = [v for v in mine if v.name is Check.DRIFT]
     drift = worst(drifts)
     drift_value = max((v.value for v in drifts), default=max(figures.drift_ratio))
     return StoreyState(

@@ -12,14 +12,14 @@ import math
 from dataclasses import dataclass
 
 from app.figures import verdict_figures
-from core.lateral.records import DIRECTIONS, STATUS_ORDER, LateralResults, Status, Verdict
+from core.lateral.cases import DIRECTIONS
+from core.lateral.records import STATUS_ORDER, Check, LateralResults, Status, Verdict
 from core.model import (
     BracedFrame,
     ElementKind,
     LoadMethod,
     MomentFrame,
     Project,
-    RuleSet,
     Settings,
     ShearWall,
 )
@@ -50,13 +50,13 @@ class TitleFields:
     file_name: str
 
 
-SHORT_NAMES: dict[str, str] = {
-    "eccentricity over torsional radius": "e₀ / r",
-    "torsional radius over radius of gyration": "r / l_s",
-    "storey stiffness over storey above": "stiffness / storey above",
-    "storey stiffness over three storeys above": "stiffness / 3 storeys above",
-    "mass over adjacent storey": "mass / adjacent",
-    "storey drift ratio": "drift ratio",
+SHORT_NAMES: dict[Check, str] = {
+    Check.ECCENTRICITY_RATIO: "e₀ / r",
+    Check.RADIUS_RATIO: "r / l_s",
+    Check.STIFFNESS_ABOVE: "stiffness / storey above",
+    Check.STIFFNESS_AVERAGE: "stiffness / 3 storeys above",
+    Check.MASS_RATIO: "mass / adjacent",
+    Check.DRIFT: "drift ratio",
 }
 """Column headings for the verdict names of core.lateral, short enough for a narrow table; the
 footnotes spell each one out. Names not listed are shown in full."""
@@ -242,7 +242,7 @@ def _spectrum_text(settings: Settings) -> str:
         s = settings.eurocode8
         return (
             f"EN 1998-1 §3.2.2.5 design spectrum, type {s.spectrum_type}, ground {s.ground_type}: "
-            f"a_g = {s.ag:g} g, q = {s.behaviour_factor:g}, β = {s.lower_bound:g}, ξ = {s.damping_percent:g} %"
+            f"a_g = {s.ag:g} g, q = {s.behaviour_factor:g}, β = {s.lower_bound:g}"
         )
     if method is LoadMethod.ASCE7:
         s = settings.asce7
@@ -299,14 +299,11 @@ def assumptions(project: Project, results: Results) -> tuple[str, ...]:
     lines.append(_loads_text(lateral))
     lines.append(
         f"Drift: design drift d_r = {lateral.drift_amplification:g} × elastic drift; ν·d_r with "
-        f"ν = {lateral.drift_reduction:g} is held to {lateral.drift_limit:g}·h. "
-        f"Rule set: {_rule_set_name(lateral.rule_set)}."
+        f"ν = {lateral.drift_reduction:g} is held to the limit {lateral.drift_basis}. "
+        f"Code limits: {lateral.rule_set_title}."
     )
+    lines.extend(lateral.notes)
     return tuple(lines)
-
-
-def _rule_set_name(rule_set: str) -> str:
-    return {RuleSet.EN1998.value: "EN 1998-1", RuleSet.ASCE7.value: "ASCE 7"}.get(rule_set, rule_set)
 
 
 def check_level(project: Project, level: int) -> None:
@@ -353,7 +350,7 @@ def sheet_content(
         rows=rows,
         building_checks=building,
         clauses=clauses,
-        rule_set=_rule_set_name(results.lateral.rule_set),
+        rule_set=results.lateral.rule_set_title,
         assumptions=assumptions(project, results),
         caution=CAUTION,
     )

@@ -35,8 +35,8 @@ import shapely
 
 from core.arrays import FloatArray, frozen_array
 from core.engine.session import AnalysisSession, KeptElement, one_blas_thread
+from core.lateral.cases import DIRECTIONS, LoadCase
 from core.lateral.centres import element_pattern, element_storey_stiffness, storey_property_arrays
-from core.lateral.checks import end_ratio, extreme_points, floor_arrays, storey_drifts
 from core.lateral.loads import (
     accidental_eccentricities,
     case_load_vector,
@@ -44,7 +44,7 @@ from core.lateral.loads import (
     static_load,
     vertical_distribution,
 )
-from core.lateral.records import DIRECTIONS, LoadCase
+from core.lateral.response import end_ratio, extreme_points, floor_arrays, storey_drifts
 from core.model import Element, Project
 from core.solve.assembly import DOF_PER_FLOOR, FloorMass, element_block, element_floors
 from core.solve.diagnostics import ILL_CONDITIONED, LayoutMemo

@@ -17,20 +17,8 @@ from scipy.linalg import cho_factor, cho_solve
 
 from core.arrays import FloatArray, frozen_array
 from core.elements import member_forces
+from core.lateral.cases import DIRECTIONS
 from core.lateral.centres import StoreyStiffness, no_twist_offsets, storey_properties, storey_stiffnesses
-from core.lateral.checks import (
-    case_results,
-    design_drift_ratios,
-    drift_amplification,
-    drift_reduction,
-    element_shares,
-    floor_arrays,
-    judge,
-    mass_ratios,
-    mode_order,
-    stiffness_ratios,
-    storey_drifts,
-)
 from core.lateral.loads import (
     accidental_eccentricities,
     case_load_vector,
@@ -39,12 +27,23 @@ from core.lateral.loads import (
     vertical_distribution,
 )
 from core.lateral.records import (
-    DIRECTIONS,
     CaseResult,
     ElementDemand,
     LateralResults,
     StoreyLateral,
 )
+from core.lateral.response import (
+    case_results,
+    design_drift_ratios,
+    drift_amplification,
+    element_shares,
+    floor_arrays,
+    mass_ratios,
+    mode_order,
+    stiffness_ratios,
+    storey_drifts,
+)
+from core.lateral.rules import rules_for
 from core.model import BracedFrame, Element, Project
 from core.solve.assembly import FloorMass, element_matrix
 from core.solve.modal import Mode
@@ -126,18 +125,23 @@ def lateral_checks(
     displacements = unit[:, reported] * scales
     elements = ElementDemands(lambda: element_demands(project, floors, matrices, displacements, cases))
     order = mode_order(modes)
+    rules = rules_for(settings)
+    drift_limit = rules.drift_limit(settings)
     return LateralResults(
-        rule_set=settings.rule_set.value,
+        rule_set=str(rules.name),
+        rule_set_title=rules.title,
         loads=(loads[0], loads[1]),
         accidental_eccentricity=frozen_array(eccentricity),
         drift_amplification=drift_amplification(settings),
-        drift_reduction=drift_reduction(settings),
-        drift_limit=settings.drift_limit,
+        drift_reduction=rules.drift_reduction(settings),
+        drift_limit=drift_limit.ratio,
+        drift_basis=drift_limit.basis,
         cases=cases,
         storeys=storeys,
         elements=elements,
         mode_order=order,
-        verdicts=judge(settings, storeys, order),
+        verdicts=rules.judge(settings, storeys, order),
+        notes=rules.notes(settings),
     )
 
 

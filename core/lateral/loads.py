@@ -15,7 +15,8 @@ from dataclasses import dataclass
 import numpy as np
 
 from core.arrays import FloatArray, frozen_array
-from core.lateral.records import Direction, LoadCase, StaticLoad
+from core.lateral.cases import Direction, LoadCase
+from core.lateral.records import StaticLoad
 from core.model import Asce7Spectrum, Eurocode8Spectrum, LoadMethod, Project, Settings, SystemType
 from core.model.geometry import bounding_size
 from core.solve.assembly import GRAVITY, FloorMass
@@ -60,10 +61,12 @@ def damping_correction(damping_percent: float) -> float:
     return max(math.sqrt(10.0 / (5.0 + damping_percent)), 0.55)
 
 
-def en1998_elastic(period: float, spectrum: Eurocode8Spectrum) -> float:
-    """Elastic horizontal spectrum S_e(T) in g (EN 1998-1 §3.2.2.2 Eqs. 3.2–3.5)."""
+def en1998_elastic(period: float, spectrum: Eurocode8Spectrum, damping_percent: float = 5.0) -> float:
+    """Elastic horizontal spectrum S_e(T) in g (EN 1998-1 §3.2.2.2 Eqs. 3.2–3.5) for viscous damping
+    ξ in %, through η (Eq. 3.6). No result uses it yet: the static loads use the design spectrum
+    (§3.2.2.5), which has no η; the damping enters there through q."""
     g = ground_parameters(spectrum)
-    eta = damping_correction(spectrum.damping_percent)
+    eta = damping_correction(damping_percent)
     plateau = spectrum.ag * g.soil_factor * eta * 2.5
     T = period
     if T <= g.tb:
@@ -76,7 +79,8 @@ def en1998_elastic(period: float, spectrum: Eurocode8Spectrum) -> float:
 
 
 def en1998_design(period: float, spectrum: Eurocode8Spectrum) -> float:
-    """Design spectrum S_d(T) in g for behaviour factor q (EN 1998-1 §3.2.2.5(4) Eqs. 3.13–3.16)."""
+    """Design spectrum S_d(T) in g for behaviour factor q (EN 1998-1 §3.2.2.5(4) Eqs. 3.13–3.16).
+    It has no damping correction η: EN 1998-1 accounts for damping in q."""
     g = ground_parameters(spectrum)
     ag, S, q = spectrum.ag, g.soil_factor, spectrum.behaviour_factor
     floor = spectrum.lower_bound * ag
@@ -97,7 +101,8 @@ def en1998_correction_factor(period: float, spectrum: Eurocode8Spectrum, storeys
 
 
 def asce7_design_spectrum(period: float, spectrum: Asce7Spectrum) -> float:
-    """Design response spectrum S_a(T) in g (ASCE 7-16 §11.4.6 Eqs. 11.4-5 to 11.4-8)."""
+    """Design response spectrum S_a(T) in g (ASCE 7-16 §11.4.6 Eqs. 11.4-5 to 11.4-8), for 5 %
+    damping (§11.4.6 defines it so; there is no damping input)."""
     t0 = 0.2 * spectrum.sd1 / spectrum.sds
     ts = spectrum.sd1 / spectrum.sds
     T = period

@@ -14,12 +14,49 @@ from dataclasses import dataclass
 from enum import StrEnum
 
 from core.arrays import FloatArray
+from core.lateral.cases import DIRECTIONS, Direction, LoadCase
 from core.model import Point
 
-Direction = str
-"""``"x"`` or ``"y"``: the direction of a load, of an analysis, or of a stiffness."""
 
-DIRECTIONS: tuple[Direction, Direction] = ("x", "y")
+class CheckGroup(StrEnum):
+    """What a check is about; views colour and sort verdicts by group."""
+
+    TORSION = "torsion"
+    DRIFT = "drift"
+    REGULARITY = "regularity"
+    MODES = "modes"
+
+
+class Check(StrEnum):
+    """The name of a judged figure (:attr:`Verdict.name`); its value is the figure in words, as
+    reports print it. Views pick verdicts by member, never by text."""
+
+    TORSION_RATIO = "torsion ratio"
+    ECCENTRICITY_RATIO = "eccentricity over torsional radius"
+    RADIUS_RATIO = "torsional radius over radius of gyration"
+    STIFFNESS_ABOVE = "storey stiffness over storey above"
+    STIFFNESS_AVERAGE = "storey stiffness over three storeys above"
+    MASS_RATIO = "mass over adjacent storey"
+    DRIFT = "storey drift ratio"
+    TORSION_MODE_ORDER = "first rotational mode"
+    TORSION_PERIOD_RATIO = "rotational over translational period"
+
+    @property
+    def group(self) -> CheckGroup:
+        return _GROUPS[self]
+
+
+_GROUPS = {
+    Check.TORSION_RATIO: CheckGroup.TORSION,
+    Check.ECCENTRICITY_RATIO: CheckGroup.TORSION,
+    Check.RADIUS_RATIO: CheckGroup.TORSION,
+    Check.STIFFNESS_ABOVE: CheckGroup.REGULARITY,
+    Check.STIFFNESS_AVERAGE: CheckGroup.REGULARITY,
+    Check.MASS_RATIO: CheckGroup.REGULARITY,
+    Check.DRIFT: CheckGroup.DRIFT,
+    Check.TORSION_MODE_ORDER: CheckGroup.MODES,
+    Check.TORSION_PERIOD_RATIO: CheckGroup.MODES,
+}
 
 
 class Status(StrEnum):
@@ -37,15 +74,16 @@ STATUS_ORDER = {Status.PASS: 0, Status.WARN: 1, Status.FAIL: 2}
 class Verdict:
     """One judged figure: a value against a limit, with the clause the limit comes from."""
 
-    name: str
-    """What is judged, in words (e.g. ``"torsion ratio"``)."""
+    name: Check
+    """What is judged (its value is the figure in words, e.g. ``"torsion ratio"``)."""
     value: float
     """The computed figure (may be ``inf`` where a denominator vanishes)."""
     limit: float
     """The limit the value is compared with."""
     status: Status
     clause: str
-    """Where the limit comes from: standard and clause, or ``"common practice, no source"``."""
+    """Where the limit comes from, in words the user reads: standard and clause, or that no code
+    sets it."""
     storey: int | None = None
     """Storey (1-based) the figure belongs to; None for a whole-building figure."""
     direction: Direction | None = None
@@ -87,21 +125,6 @@ class StaticLoad:
     def storey_shears(self) -> FloatArray:
         """(N,) shear in each storey: the sum of the floor forces at and above it, kN."""
         return self.storey_forces[::-1].cumsum()[::-1]
-
-
-@dataclass(frozen=True)
-class LoadCase:
-    """A static load case: the pattern of one direction and sense, at an eccentric point."""
-
-    name: str
-    """E.g. ``"+x, e+"``: load in +x, mass centre moved by +e (toward +y)."""
-    direction: Direction
-    sign: int
-    """+1 or −1: the sense of the load along ``direction``."""
-    eccentricity_sign: int
-    """+1, −1, or 0 for the centred (wind-style) case. The mass centre moves by
-    eccentricity_sign·e_a along the axis perpendicular to ``direction`` (+y for an x load, +x
-    for a y load), the same sense on all floors (EN 1998-1 §4.3.2(1); ASCE 7 §12.8.4.2)."""
 
 
 @dataclass(frozen=True)
@@ -239,7 +262,9 @@ class LateralResults:
     """Everything the lateral checks computed for one project state."""
 
     rule_set: str
-    """The rule set whose limits judge the verdicts (core.model.RuleSet value)."""
+    """The name of the rule set whose limits judge the verdicts (``Settings.rule_set``)."""
+    rule_set_title: str
+    """That rule set's code as the user reads it (``"EN 1998-1"``)."""
     loads: tuple[StaticLoad, StaticLoad]
     """The static load in x and in y."""
     accidental_eccentricity: FloatArray
@@ -250,7 +275,9 @@ class LateralResults:
     drift_reduction: float
     """ν of EN 1998-1 §4.4.3.2 applied before comparing with the limit (1 for the ASCE 7 set)."""
     drift_limit: float
-    """The user's storey drift ratio limit."""
+    """The storey drift ratio limit the drifts were judged by."""
+    drift_basis: str
+    """Where that limit comes from, in words (a row of the code's table, or the project's own)."""
     cases: tuple[CaseResult, ...]
     """The reported load cases: ±x and ±y each with ±e (eight), plus ±x and ±y centred if the
     project asks for them."""
@@ -259,6 +286,8 @@ class LateralResults:
     """One per element, in the project's order; built when first read."""
     mode_order: ModeOrder
     verdicts: tuple[Verdict, ...]
+    notes: tuple[str, ...] = ()
+    """Sentences to show beside the verdicts (e.g. one code's limits judging another code's loads)."""
 
     def worst_torsion_ratio(self, direction: Direction) -> float:
         """The largest torsion ratio of any storey under the cases in ``direction``."""
@@ -289,9 +318,6 @@ class LateralResults:
     @property
     def worst_torsion(self) -> Verdict | None:
         """The torsion-ratio verdict with the largest value, if the rule set judges it."""
-        torsion = [v for v in self.verdicts if v.name == TORSION_RATIO]
+        torsion = [v for v in self.verdicts if v.name is Check.TORSION_RATIO]
         return max(torsion, key=lambda v: v.value, default=None)
 
-
-TORSION_RATIO = "torsion ratio"
-"""Verdict name of the ASCE 7 Table 12.3-1 torsion ratio."""

@@ -56,7 +56,6 @@ BOUNDS: dict[str, Bound] = {
     "ground_acceleration": Bound(1.0e-3, 5.0, "g"),
     "behaviour_factor": Bound(1.0, 10.0, ""),
     "lower_bound_factor": Bound(0.0, 1.0, ""),
-    "damping_percent": Bound(0.5, 50.0, "%"),
     "spectral_acceleration": Bound(1.0e-3, 10.0, "g"),
     "spectral_acceleration_s1": Bound(0.0, 10.0, "g"),
     "long_period": Bound(0.1, 100.0, "s"),
@@ -67,7 +66,6 @@ BOUNDS: dict[str, Bound] = {
     "accidental_eccentricity": Bound(0.0, 0.5, ""),
     "drift_limit": Bound(1.0e-4, 0.1, ""),
     "drift_reduction": Bound(0.01, 1.0, ""),
-    "damping_ratio": Bound(1.0e-3, 0.5, ""),
 }
 """Range of each kind of number (the row names are what :func:`within` takes)."""
 

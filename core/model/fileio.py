@@ -37,6 +37,7 @@ import numpy as np
 from core.errors import ModelError
 from core.model import Element, Level, Project, Settings, kind_spec
 from core.model.bounds import FILE_SIZE, NESTING
+from core.model.settings import RETIRED_FIELDS
 
 FORMAT_TAG = "poise-project"
 FORMAT_VERSION = 1
@@ -143,6 +144,9 @@ def _decode(value: Any, kind: Any, path: str) -> Any:
     if dataclasses.is_dataclass(kind):
         return _decode_dataclass(value, kind, path)
     if origin in (typing.Union, types.UnionType):
+        options = [a for a in typing.get_args(kind) if a is not type(None)]
+        if len(options) == 1 and len(typing.get_args(kind)) == 2:
+            return None if value is None else _decode(value, options[0], path)
         raise ModelError(path, "cannot tell which kind of value this is")
     raise ModelError(path, f"unsupported field type {kind!r}")
 
@@ -164,7 +168,7 @@ def _decode_dataclass(value: Any, cls: Any, path: str) -> Any:
         raise ModelError(path, f"expected an object, got {_shown(value)}")
     hints = typing.get_type_hints(cls)
     fields = {f.name: f for f in dataclasses.fields(cls)}
-    unknown = sorted(set(value) - set(fields))
+    unknown = sorted(set(value) - set(fields) - RETIRED_FIELDS.get(cls, frozenset()))
     if unknown:
         raise ModelError(_join(path, _key(unknown[0])), "unknown field")
     arguments = {}

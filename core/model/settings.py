@@ -1,4 +1,11 @@
-"""Project-wide analysis settings: rule set, load method, spectra, eccentricity, drift limits."""
+"""Project-wide analysis settings: code limits, load method, spectra, eccentricity, drift limit.
+
+No setting here names a damping ratio: no result of Poise depends on one yet. The EN 1998-1
+design spectrum (§3.2.2.5) has no damping correction η (damping enters through q), and the
+ASCE 7-16 design spectrum (§11.4.6) is for 5 % damping. Files that still hold the retired
+``damping_ratio`` and ``eurocode8.damping_percent`` load, and the values are dropped
+(:data:`RETIRED_FIELDS`).
+"""
 
 from __future__ import annotations
 
@@ -10,10 +17,28 @@ from core.model.validation import require
 
 
 class RuleSet(StrEnum):
-    """Which code's limits are judged pass/warn/fail; both sets' figures are always computed."""
+    """The built-in code limits (the rule sets of :mod:`core.lateral.rules`); which code's limits
+    judge pass/warn/fail. More may be registered (:func:`register_rule_set_name`)."""
 
     EN1998 = "en1998"
     ASCE7 = "asce7"
+
+
+_RULE_SET_NAMES: dict[str, None] = dict.fromkeys(RuleSet)
+
+
+def register_rule_set_name(name: str) -> None:
+    """Let ``Settings.rule_set`` take ``name`` (core.lateral.rules registers a new rule set's name)."""
+    _RULE_SET_NAMES[name] = None
+
+
+def unregister_rule_set_name(name: str) -> None:
+    if name not in tuple(RuleSet):
+        _RULE_SET_NAMES.pop(name, None)
+
+
+def rule_set_names() -> tuple[str, ...]:
+    return tuple(_RULE_SET_NAMES)
 
 
 class LoadMethod(StrEnum):
@@ -43,7 +68,6 @@ class Eurocode8Spectrum:
     spectrum_type: int = 1
     behaviour_factor: float = 4.0
     lower_bound: float = 0.2
-    damping_percent: float = 5.0
 
     def __post_init__(self) -> None:
         within(self.ag, "ground_acceleration", "ag")
@@ -51,7 +75,6 @@ class Eurocode8Spectrum:
         require(self.spectrum_type in (1, 2), "spectrum_type", "must be 1 or 2")
         within(self.behaviour_factor, "behaviour_factor", "behaviour_factor")
         within(self.lower_bound, "lower_bound_factor", "lower_bound")
-        within(self.damping_percent, "damping_percent", "damping_percent")
 
 
 @dataclass(frozen=True)
@@ -82,7 +105,8 @@ class Asce7Spectrum:
 class Settings:
     """Project-wide analysis settings."""
 
-    rule_set: RuleSet = RuleSet.EN1998
+    rule_set: str = RuleSet.EN1998
+    """The name of the code limits that judge the figures (a :class:`RuleSet` or a registered one)."""
     load_method: LoadMethod = LoadMethod.EN1998
     eurocode8: Eurocode8Spectrum = field(default_factory=Eurocode8Spectrum)
     asce7: Asce7Spectrum = field(default_factory=Asce7Spectrum)
@@ -93,16 +117,34 @@ class Settings:
     """Share of the plan dimension perpendicular to the load (EN 1998-1 §4.3.2; ASCE 7 §12.8.4.2)."""
     include_centred_case: bool = False
     """Add the wind-style load cases with no accidental eccentricity."""
-    drift_limit: float = 0.005
-    """Storey drift ratio limit (EN 1998-1 §4.4.3.2(a): d_r·ν ≤ 0.005 h, brittle finishes)."""
+    drift_limit: float | None = None
+    """The project's own storey drift ratio limit; None takes the code limits' value for
+    ``drift_basis``."""
+    drift_basis: str = ""
+    """Which of the code limits' drift limits applies when ``drift_limit`` is None: a key of the rule
+    set's table (EN 1998-1 §4.4.3.2 by non-structural elements, ASCE 7-16 Table 12.12-1 by risk
+    category and structure); empty or a key the rule set does not have: its first."""
     drift_reduction: float = 0.5
     """ν of EN 1998-1 §4.4.3.2(2), applied to the design drift under the EN 1998 rule set
     (recommended 0.5 for importance classes I and II, 0.4 for III and IV)."""
-    damping_ratio: float = 0.05
 
     def __post_init__(self) -> None:
+        require(
+            self.rule_set in _RULE_SET_NAMES,
+            "rule_set",
+            "must be one of " + ", ".join(repr(str(n)) for n in _RULE_SET_NAMES) + f", got {self.rule_set!r}",
+        )
+        if self.rule_set in tuple(RuleSet):
+            object.__setattr__(self, "rule_set", RuleSet(self.rule_set))
         within(self.base_shear_coefficient, "base_shear_coefficient", "base_shear_coefficient")
         within(self.accidental_eccentricity, "accidental_eccentricity", "accidental_eccentricity")
-        within(self.drift_limit, "drift_limit", "drift_limit")
+        if self.drift_limit is not None:
+            within(self.drift_limit, "drift_limit", "drift_limit")
         within(self.drift_reduction, "drift_reduction", "drift_reduction")
-        within(self.damping_ratio, "damping_ratio", "damping_ratio")
+
+
+RETIRED_FIELDS: dict[type, frozenset[str]] = {
+    Settings: frozenset({"damping_ratio"}),
+    Eurocode8Spectrum: frozenset({"damping_percent"}),
+}
+"""Fields older files may hold that no longer exist; reading drops them (neither changed a result)."""

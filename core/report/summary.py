@@ -13,8 +13,9 @@ JSON layout (``poise analyse FILE --json``), all values in kN, m, t, s, rad:
   ``cumulative`` ([x, y, θ] effective modal mass over the total), ``shape`` (per floor
   [u_x, u_y, θ] at the mass centre, mass-normalised).
 - ``lateral``: the lateral checks, fields named as in :mod:`core.lateral.records` (where every
-  field is documented): ``rule_set``, ``status`` (worst verdict: ``pass``, ``warn``, ``fail``),
-  ``drift_amplification``, ``drift_reduction``, ``drift_limit``, ``accidental_eccentricity``
+  field is documented): ``rule_set``, ``rule_set_title``, ``status`` (worst verdict: ``pass``,
+  ``warn``, ``fail``), ``notes`` (sentences to show beside the verdicts), ``drift_amplification``,
+  ``drift_reduction``, ``drift_limit``, ``drift_basis`` (where the limit comes from), ``accidental_eccentricity``
   (per floor [e for x loads, e for y loads], m); ``loads`` (x then y: ``direction``, ``method``,
   ``modal_period``, ``period``, ``approximate_period_en1998``, ``approximate_period_asce7``,
   ``period_cap_asce7``, ``coefficient``, ``base_shear``, ``distribution_exponent``,
@@ -152,10 +153,13 @@ def lateral_to_dict(lateral: LateralResults) -> dict[str, Any]:
     """The ``lateral`` section of the JSON (layout in this module's docstring)."""
     return {
         "rule_set": lateral.rule_set,
+        "rule_set_title": lateral.rule_set_title,
         "status": lateral.status.value,
+        "notes": list(lateral.notes),
         "drift_amplification": lateral.drift_amplification,
         "drift_reduction": lateral.drift_reduction,
         "drift_limit": lateral.drift_limit,
+        "drift_basis": lateral.drift_basis,
         "accidental_eccentricity": _plain(lateral.accidental_eccentricity),
         "loads": _plain(lateral.loads),
         "storeys": _plain(lateral.storeys),
@@ -278,9 +282,11 @@ def format_lateral(lateral: LateralResults) -> list[str]:
     lines.append("")
     failing = [v for v in lateral.verdicts if v.status is not Status.PASS]
     lines.append(
-        f"Checks ({lateral.rule_set} rule set): {lateral.status.value}; "
-        f"{len(lateral.verdicts) - len(failing)} of {len(lateral.verdicts)} pass"
+        f"Checks by {lateral.rule_set_title} limits: {lateral.status.value}; "
+        f"{len(lateral.verdicts) - len(failing)} of {len(lateral.verdicts)} pass; "
+        f"drift limit {lateral.drift_basis}"
     )
+    lines.extend(f"  Note: {note}" for note in lateral.notes)
     for v in failing:
         where = ", ".join(
             part

@@ -1,8 +1,9 @@
-"""Lateral checks: torsion ratio, A_x, drifts, element shares, vertical regularity, mode order,
-and the rule sets that judge them.
+"""The response of the model to the static load cases, and the figures the rule sets judge.
 
-Every judged figure becomes a :class:`Verdict` carrying its clause. The rule set chooses which
-limits are judged; the figures themselves are always computed.
+Per case: displacements, drifts at the mass centre, the ends and the corners, torsion ratios and
+A_x; per storey: design drifts, stiffness and mass ratios; per element: its share of the storey
+shear; over the modes: where the first rotation-dominated one falls. No limit lives here: the rule
+sets (:mod:`core.lateral.rules`) judge these figures.
 """
 
 from __future__ import annotations
@@ -14,48 +15,16 @@ from functools import lru_cache
 import numpy as np
 
 from core.arrays import FloatArray, frozen_array
-from core.lateral.records import (
-    DIRECTIONS,
-    TORSION_RATIO,
-    CaseResult,
-    Direction,
-    LoadCase,
-    ModeOrder,
-    Status,
-    StoreyLateral,
-    Verdict,
-)
-from core.model import LoadMethod, Point, Project, Ring, RuleSet, Settings
+from core.lateral.cases import Direction, LoadCase
+from core.lateral.records import CaseResult, ModeOrder
+from core.model import LoadMethod, Point, Project, Ring, Settings
 from core.solve.assembly import FloorMass
 from core.solve.modal import Mode
 
-TORSION_IRREGULAR = 1.2
-"""ASCE 7-16 Table 12.3-1 type 1a: torsional irregularity above this ratio."""
-TORSION_EXTREME = 1.4
-"""ASCE 7-16 Table 12.3-1 type 1b: extreme torsional irregularity above this ratio."""
+AMPLIFICATION_BASE = 1.2
+"""The 1.2 of ASCE 7-16 §12.8.4.3 Eq. 12.8-14: A_x = (δ_max / 1.2 δ_avg)²."""
 AMPLIFICATION_CAP = 3.0
 """ASCE 7-16 §12.8.4.3: A_x need not exceed 3.0."""
-ECCENTRICITY_LIMIT = 0.30
-"""EN 1998-1 §4.2.3.2(6) Eq. 4.1a: e_0 ≤ 0.30 r."""
-SOFT_STOREY = (0.70, 0.80)
-"""ASCE 7-16 Table 12.3-2 type 1a: stiffness below 70 % of the storey above or 80 % of the
-average of the three above."""
-EXTREME_SOFT_STOREY = (0.60, 0.70)
-"""ASCE 7-16 Table 12.3-2 type 1b: below 60 % / 70 %."""
-MASS_IRREGULAR = 1.5
-"""ASCE 7-16 Table 12.3-2 type 2: mass above 150 % of an adjacent storey's."""
-TORSION_PERIOD_RATIO = 0.9
-"""First torsional over first translational period: common practice, no source (some codes set
-0.9 [memory], references.md)."""
-
-EN_SOFT_CLAUSE = (
-    "EN 1998-1 §4.2.3.3(3): no abrupt change of storey stiffness; the figure is common practice, "
-    "no source (that of ASCE 7-16 Table 12.3-2)"
-)
-EN_MASS_CLAUSE = (
-    "EN 1998-1 §4.2.3.3(3): no abrupt change of storey mass; the figure is common practice, "
-    "no source (that of ASCE 7-16 Table 12.3-2)"
-)
 
 
 # --- response of one load case -----------------------------------------------------------------
@@ -129,7 +98,7 @@ def end_ratio(ends: FloatArray) -> FloatArray:
 def amplification(end_displacements: FloatArray) -> FloatArray:
     """A_x = (δ_max / 1.2 δ_avg)², 1 ≤ A_x ≤ 3 (ASCE 7-16 §12.8.4.3 Eq. 12.8-14)."""
     ratio = end_ratio(end_displacements)
-    return np.clip((ratio / TORSION_IRREGULAR) ** 2, 1.0, AMPLIFICATION_CAP)
+    return np.clip((ratio / AMPLIFICATION_BASE) ** 2, 1.0, AMPLIFICATION_CAP)
 
 
 def case_results(
@@ -200,11 +169,6 @@ def drift_amplification(settings: Settings) -> float:
     return 1.0
 
 
-def drift_reduction(settings: Settings) -> float:
-    """ν of EN 1998-1 §4.4.3.2(2) under the EN 1998 rule set; 1 under ASCE 7."""
-    return settings.drift_reduction if settings.rule_set is RuleSet.EN1998 else 1.0
-
-
 # --- regularity --------------------------------------------------------------------------------
 
 
@@ -263,195 +227,6 @@ def mode_order(modes: Sequence[Mode]) -> ModeOrder:
         ratio = modes[first_torsion - 1].period / modes[min(translational) - 1].period
         before = len(translational) < 2 or first_torsion < max(translational)
     return ModeOrder(first_x, first_y, first_torsion, ratio, before)
-
-
-# --- rule sets ---------------------------------------------------------------------------------
-
-
-def judge(settings: Settings, storeys: Sequence[StoreyLateral], order: ModeOrder) -> tuple[Verdict, ...]:
-    """The verdicts of the project's rule set, then those common to both sets."""
-    verdicts: list[Verdict] = []
-    if settings.rule_set is RuleSet.EN1998:
-        for s in storeys:
-            verdicts.extend(_en1998_plan(s))
-        verdicts.extend(_regularity(storeys, en1998=True))
-    else:
-        for s in storeys:
-            verdicts.extend(_asce7_torsion(s))
-        verdicts.extend(_regularity(storeys, en1998=False))
-    for s in storeys:
-        verdicts.extend(_drift(settings, s))
-    verdicts.extend(_mode_order(order))
-    return tuple(verdicts)
-
-
-def _en1998_plan(s: StoreyLateral) -> list[Verdict]:
-    out = []
-    # Eq. 4.1a/4.1b with the direction of analysis: e_0x and r_x belong to the analysis in y.
-    for i, (ecc_axis, analysis) in enumerate((("x", "y"), ("y", "x"))):
-        if s.rigidity_centre is None:
-            continue
-        ratio = s.eccentricity_ratio[i]
-        out.append(
-            Verdict(
-                name="eccentricity over torsional radius",
-                value=ratio,
-                limit=ECCENTRICITY_LIMIT,
-                status=Status.PASS if ratio <= ECCENTRICITY_LIMIT else Status.WARN,
-                clause="EN 1998-1 §4.2.3.2(6) Eq. 4.1a",
-                storey=s.storey,
-                direction=analysis,
-                note=f"e_0{ecc_axis}/r_{ecc_axis}; above the limit the building is not regular in plan "
-                "(§4.2.3.1: a spatial model and the regularity consequences apply).",
-            )
-        )
-        radius = s.radius_ratio[i]
-        out.append(
-            Verdict(
-                name="torsional radius over radius of gyration",
-                value=radius,
-                limit=1.0,
-                status=Status.PASS if radius >= 1.0 else Status.FAIL,
-                clause="EN 1998-1 §4.2.3.2(6) Eq. 4.1b",
-                storey=s.storey,
-                direction=analysis,
-                note=f"r_{ecc_axis}/l_s; below 1 the system is torsionally flexible (for concrete "
-                "buildings a much lower behaviour factor, §5.2.2.1).",
-            )
-        )
-    return out
-
-
-def _asce7_torsion(s: StoreyLateral) -> list[Verdict]:
-    out = []
-    for i, d in enumerate(DIRECTIONS):
-        ratio = s.torsion_ratio[i]
-        if ratio <= TORSION_IRREGULAR:
-            status, note = Status.PASS, "no torsional irregularity."
-        elif ratio <= TORSION_EXTREME:
-            status, note = Status.WARN, "torsional irregularity type 1a; A_x amplifies accidental torsion."
-        else:
-            status, note = Status.FAIL, "extreme torsional irregularity type 1b (§12.3.3.1 limits its use)."
-        out.append(
-            Verdict(
-                name=TORSION_RATIO,
-                value=ratio,
-                limit=TORSION_IRREGULAR,
-                status=status,
-                clause="ASCE 7-16 Table 12.3-1 types 1a (> 1.2) and 1b (> 1.4)",
-                storey=s.storey,
-                direction=d,
-                note=f"largest storey drift at an end over the average of both ends; {note}",
-            )
-        )
-    return out
-
-
-def _regularity(storeys: Sequence[StoreyLateral], en1998: bool) -> list[Verdict]:
-    out = []
-    top = len(storeys)
-    for s in storeys:
-        for i, d in enumerate(DIRECTIONS):
-            for ratio, (warn_at, fail_at), what in (
-                (s.stiffness_ratio_above[i], (SOFT_STOREY[0], EXTREME_SOFT_STOREY[0]), "storey above"),
-                (
-                    s.stiffness_ratio_average[i],
-                    (SOFT_STOREY[1], EXTREME_SOFT_STOREY[1]),
-                    "three storeys above",
-                ),
-            ):
-                if ratio is None:
-                    continue
-                if ratio >= warn_at:
-                    status = Status.PASS
-                elif en1998 or ratio >= fail_at:
-                    status = Status.WARN
-                else:
-                    status = Status.FAIL
-                out.append(
-                    Verdict(
-                        name=f"storey stiffness over {what}",
-                        value=ratio,
-                        limit=warn_at,
-                        status=status,
-                        clause=EN_SOFT_CLAUSE if en1998 else "ASCE 7-16 Table 12.3-2 types 1a and 1b",
-                        storey=s.storey,
-                        direction=d,
-                        note="a soft storey below the limit (ASCE 7 extreme soft storey below "
-                        f"{fail_at:.0%}).",
-                    )
-                )
-        # A roof lighter than the floor below need not be considered (ASCE 7-16 Table 12.3-2 type 2).
-        candidates = [s.mass_ratio[0]]
-        if s.storey + 1 < top:
-            candidates.append(s.mass_ratio[1])
-        finite = [r for r in candidates if r is not None]
-        if finite:
-            ratio = max(finite)
-            out.append(
-                Verdict(
-                    name="mass over adjacent storey",
-                    value=ratio,
-                    limit=MASS_IRREGULAR,
-                    status=Status.PASS if ratio <= MASS_IRREGULAR else Status.WARN,
-                    clause=EN_MASS_CLAUSE if en1998 else "ASCE 7-16 Table 12.3-2 type 2",
-                    storey=s.storey,
-                    note="a heavy floor between lighter ones above the limit (weight irregularity).",
-                )
-            )
-    return out
-
-
-def _drift(settings: Settings, s: StoreyLateral) -> list[Verdict]:
-    out = []
-    nu = drift_reduction(settings)
-    for i, d in enumerate(DIRECTIONS):
-        if settings.rule_set is RuleSet.EN1998:
-            value = nu * s.drift_ratio[i]
-            clause = f"EN 1998-1 §4.4.3.2(1): ν·d_r ≤ limit·h, ν = {nu:g} (§4.4.3.2(2)); d_r = q·d_e (§4.3.4)"
-            where = "at the mass centre"
-        else:
-            irregular = s.torsion_ratio[i] > TORSION_IRREGULAR
-            value = s.corner_drift_ratio[i] if irregular else s.drift_ratio[i]
-            clause = "ASCE 7-16 §12.12.1 (Δ = C_d·δ_e/I_e, §12.8.6; at the edges if torsionally irregular)"
-            where = "at the worst corner" if irregular else "at the mass centre"
-        out.append(
-            Verdict(
-                name="storey drift ratio",
-                value=value,
-                limit=settings.drift_limit,
-                status=Status.PASS if value <= settings.drift_limit else Status.FAIL,
-                clause=clause,
-                storey=s.storey,
-                direction=d,
-                note=f"design drift {where} over the storey height, against the project's limit.",
-            )
-        )
-    return out
-
-
-def _mode_order(order: ModeOrder) -> list[Verdict]:
-    if order.first_torsion is None:
-        return []
-    source = "common practice, no source"
-    return [
-        Verdict(
-            name="first rotational mode",
-            value=float(order.first_torsion),
-            limit=3.0,
-            status=Status.WARN if order.torsion_before_translation else Status.PASS,
-            clause=source,
-            note="the first rotation-dominated mode should follow both translational ones.",
-        ),
-        Verdict(
-            name="rotational over translational period",
-            value=order.period_ratio,
-            limit=TORSION_PERIOD_RATIO,
-            status=Status.PASS if order.period_ratio <= TORSION_PERIOD_RATIO else Status.WARN,
-            clause=f"{source} (some codes set {TORSION_PERIOD_RATIO} [memory])",
-            note="period of the first rotation-dominated mode over the longest translational period.",
-        ),
-    ]
 
 
 def design_drift_ratios(

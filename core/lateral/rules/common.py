@@ -1,0 +1,143 @@
+"""Checks both built-in rule sets make, with the thresholds and clause text handed in.
+
+Each function takes the limits it judges by as arguments (from the calling rule set's
+parameters), so no check asks which code it serves.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from dataclasses import dataclass
+
+from core.lateral.cases import DIRECTIONS
+from core.lateral.records import Check, ModeOrder, Status, StoreyLateral, Verdict
+
+NO_CODE = "No code clause: EN 1998-1 and ASCE 7-16 set no such limit; a rule of thumb of concept design"
+"""Clause text of the checks no code sets (mode order)."""
+
+
+@dataclass(frozen=True)
+class RegularityLimits:
+    """Vertical regularity thresholds and the clause text they are quoted with."""
+
+    soft_storey: tuple[float, float]
+    """Stiffness below these shares of the storey above / of the three above is soft."""
+    extreme_soft_storey: tuple[float, float]
+    """Below these it is extremely soft."""
+    extreme_status: Status
+    """The status of an extremely soft storey (a code with no such class: WARN)."""
+    mass_ratio: float
+    """A floor heavier than this many times an adjacent one is a mass irregularity."""
+    stiffness_clause: str
+    mass_clause: str
+
+
+@dataclass(frozen=True)
+class ModeLimits:
+    """The mode-order checks' limits."""
+
+    torsion_period_ratio: float = 0.9
+    """Period of the first rotation-dominated mode over the longest translational one."""
+    torsion_mode_number: int = 3
+    clause: str = NO_CODE
+
+
+def regularity(storeys: Sequence[StoreyLateral], limits: RegularityLimits) -> list[Verdict]:
+    """Soft storeys (stiffness over the storey above and over the three above) and heavy floors."""
+    out = []
+    top = len(storeys)
+    for s in storeys:
+        for i, d in enumerate(DIRECTIONS):
+            for ratio, (warn_at, fail_at), check in (
+                (
+                    s.stiffness_ratio_above[i],
+                    (limits.soft_storey[0], limits.extreme_soft_storey[0]),
+                    Check.STIFFNESS_ABOVE,
+                ),
+                (
+                    s.stiffness_ratio_average[i],
+                    (limits.soft_storey[1], limits.extreme_soft_storey[1]),
+                    Check.STIFFNESS_AVERAGE,
+                ),
+            ):
+                if ratio is None:
+                    continue
+                if ratio >= warn_at:
+                    status = Status.PASS
+                elif ratio >= fail_at:
+                    status = Status.WARN
+                else:
+                    status = limits.extreme_status
+                out.append(
+                    Verdict(
+                        name=check,
+                        value=ratio,
+                        limit=warn_at,
+                        status=status,
+                        clause=limits.stiffness_clause,
+                        storey=s.storey,
+                        direction=d,
+                        note=f"a soft storey below the limit (extremely soft below {fail_at:.0%}).",
+                    )
+                )
+        # A roof lighter than the floor below need not be considered (ASCE 7-16 Table 12.3-2 type 2).
+        candidates = [s.mass_ratio[0]]
+        if s.storey + 1 < top:
+            candidates.append(s.mass_ratio[1])
+        finite = [r for r in candidates if r is not None]
+        if finite:
+            ratio = max(finite)
+            out.append(
+                Verdict(
+                    name=Check.MASS_RATIO,
+                    value=ratio,
+                    limit=limits.mass_ratio,
+                    status=Status.PASS if ratio <= limits.mass_ratio else Status.WARN,
+                    clause=limits.mass_clause,
+                    storey=s.storey,
+                    note="a heavy floor between lighter ones above the limit (weight irregularity).",
+                )
+            )
+    return out
+
+
+def drift(
+    storey: StoreyLateral, direction_index: int, value: float, limit: float, clause: str, where: str
+) -> Verdict:
+    """The drift verdict of one storey and direction: ``value`` (design drift ratio, reduced where
+    the code says) against ``limit``."""
+    return Verdict(
+        name=Check.DRIFT,
+        value=value,
+        limit=limit,
+        status=Status.PASS if value <= limit else Status.FAIL,
+        clause=clause,
+        storey=storey.storey,
+        direction=DIRECTIONS[direction_index],
+        note=f"design drift {where} over the storey height, against the drift limit.",
+    )
+
+
+def mode_order(order: ModeOrder, limits: ModeLimits) -> list[Verdict]:
+    """The first rotation-dominated mode should come after both translational ones, and its period
+    should be clearly shorter than theirs."""
+    if order.first_torsion is None:
+        return []
+    return [
+        Verdict(
+            name=Check.TORSION_MODE_ORDER,
+            value=float(order.first_torsion),
+            limit=float(limits.torsion_mode_number),
+            status=Status.WARN if order.torsion_before_translation else Status.PASS,
+            clause=limits.clause,
+            note="the first rotation-dominated mode should follow both translational ones.",
+        ),
+        Verdict(
+            name=Check.TORSION_PERIOD_RATIO,
+            value=order.period_ratio,
+            limit=limits.torsion_period_ratio,
+            status=Status.PASS if order.period_ratio <= limits.torsion_period_ratio else Status.WARN,
+            clause=limits.clause,
+            note="period of the first rotation-dominated mode over the longest translational period.",
+        ),
+    ]
