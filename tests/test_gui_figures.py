@@ -11,21 +11,21 @@ from app.figures import verdict_figures
 from app.panels.verdicts import storey_state
 from app.resources import sample_path
 from core.analysis import analyse
-from core.lateral.records import TORSION_RATIO, Status, Verdict
+from core.lateral.records import Check, Status, Verdict
 from core.model.fileio import load_project
 from core.model.settings import RuleSet
 from tests.test_gui_support import make_window
 
 
 def _verdict(name: str, value: float, limit: float, status: Status = Status.FAIL) -> Verdict:
-    return Verdict(name=name, value=value, limit=limit, status=status, clause="c", storey=1, direction="x", note="")
+    return Verdict(name=Check(name), value=value, limit=limit, status=status, clause="c", storey=1, direction="x", note="")
 
 
 @pytest.mark.parametrize("stem", ["residential_8_storey_walls", "office_5_storey_braced", "pavilion_1_storey"])
 def test_the_torsion_chip_is_coloured_only_by_the_torsion_ratio_check(stem):
     lateral = analyse(load_project(sample_path(stem))).lateral
     for storey in lateral.storeys:
-        judged = [v for v in lateral.verdicts if v.storey == storey.storey and v.name == TORSION_RATIO]
+        judged = [v for v in lateral.verdicts if v.storey == storey.storey and v.name is Check.TORSION_RATIO]
         state = storey_state(lateral, storey.storey)
         if not judged:
             assert state.torsion_status is None  # grey: these limits do not judge this figure
@@ -37,7 +37,7 @@ def test_en1998_strip_shows_grey_torsion_chips():
     project = load_project(sample_path("residential_8_storey_walls"))
     project = dataclasses.replace(project, settings=dataclasses.replace(project.settings, rule_set=RuleSet.EN1998))
     lateral = analyse(project).lateral
-    assert not any(v.name == TORSION_RATIO for v in lateral.verdicts)
+    assert not any(v.name is Check.TORSION_RATIO for v in lateral.verdicts)
     assert all(storey_state(lateral, s.storey).torsion_status is None for s in lateral.storeys)
 
 

@@ -8,7 +8,7 @@ from PySide6.QtGui import QGuiApplication
 
 from app.panels.verdicts import worst
 from app.resources import sample_path
-from core.lateral.records import Status, Verdict
+from core.lateral.records import Check, Status, Verdict
 from core.model.fileio import load_project
 from tests.test_gui_support import make_window
 
@@ -60,7 +60,7 @@ def test_copy_gives_tab_separated_text(window):
 
 def test_the_worst_verdict_is_the_one_nearest_failing():
     def verdict(value, limit, status, storey):
-        return Verdict("x", value, limit, status, "clause", storey)
+        return Verdict(Check.DRIFT, value, limit, status, "clause", storey)
 
     drifts = [verdict(0.002, 0.005, Status.PASS, 1), verdict(0.004, 0.005, Status.PASS, 2)]
     assert worst(drifts).storey == 2
