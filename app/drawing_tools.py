@@ -11,13 +11,13 @@ from PySide6.QtGui import QAction, QActionGroup
 from PySide6.QtWidgets import QToolBar
 
 from app.action_factory import make_action
+from app.kinds import app_kinds
 from app.tools.base import Tool
 from app.tools.outline import OPENING, OUTLINE, PolygonTool
 from app.tools.place import PlaceElementTool
 from app.tools.rectangle import RectangleTool
 from app.tools.select import SelectTool
 from app.tools.vertex import VertexTool
-from core.model import ElementKind
 
 TOOL_BAR_GROUPS_START = (2, 6)
 """Tool bar separators before the outline tools and before the element tools."""
@@ -38,7 +38,7 @@ class DrawingTools(QObject):
             RectangleTool(view, OPENING),
             PolygonTool(view, OPENING),
         ]
-        tools += [PlaceElementTool(view, kind, window.placement) for kind in ElementKind]
+        tools += [PlaceElementTool(view, spec, window.placement) for spec in app_kinds()]
         self.tools: dict[str, Tool] = {tool.name: tool for tool in tools}
         self.group = QActionGroup(window)
         self.actions: dict[str, QAction] = {}

@@ -10,9 +10,10 @@ import numpy as np
 import pytest
 from PySide6.QtCore import QSettings
 
-from app.exchange.dxf_export import APP_ID, KIND_ROLES, ROLE_COLOURS, export_layout_dxf, layer_name
+from app.exchange.dxf_export import APP_ID, export_layout_dxf, layer_name
 from app.exchange.dxf_underlay import CHORD_TOLERANCE, read_underlay
 from app.exchange.errors import ExchangeError, MissingUnitsError
+from app.kinds import app_kind
 from app.resources import sample_projects
 from core.analysis import analyse
 from core.model.fileio import load_project
@@ -60,7 +61,7 @@ def test_layout_round_trip_keeps_outlines_and_element_ends(path, unit, tmp_path)
         for opening in level.openings:
             assert any(_same_ring(o, opening) for o in openings)
         for element in project.elements_in_storey(number):
-            on_layer = underlay.segments[layers == layer_name(number, KIND_ROLES[element.kind])]
+            on_layer = underlay.segments[layers == layer_name(number, app_kind(element.kind).dxf_role)]
             assert _matching_segment(on_layer, element.start, element.end), f"{element.id} on level {number}"
 
 
@@ -74,7 +75,8 @@ def test_exported_lines_carry_their_element_ids(tmp_path):
     labels = {t.dxf.text for t in doc.modelspace().query("TEXT")}
     assert ids <= labels and {"CM", "CR"} <= labels
     ours = {layer.dxf.name for layer in doc.layers} - {"0", "Defpoints"}
-    assert ours == {layer_name(1, role) for role in ROLE_COLOURS}
+    roles = ("OUTLINE", "OPENINGS", "BRACED", "WALLS", "MOMENT", "SPRINGS", "CENTRES", "LABELS")
+    assert ours == {layer_name(1, role) for role in roles}
 
 
 def test_centres_are_drawn_where_the_results_put_them(tmp_path):

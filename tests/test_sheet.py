@@ -20,9 +20,10 @@ from PySide6.QtWidgets import QGraphicsScene, QGraphicsView
 from app.cli import main
 from app.exchange.png_export import export_png
 from app.resources import sample_projects
-from app.sheet import export_sheet_pdf, page_layout, render_sheet
 from app.sheet.content import listed_modes, period_text, sheet_content, worst_torsion_level
 from app.sheet.options import SheetOptions
+from app.sheet.pdf import export_sheet_pdf, page_layout
+from app.sheet.render import render_sheet
 from core.analysis import analyse
 from core.lateral.records import STATUS_ORDER
 from core.model import Element, Level, Project, ShearWall

@@ -12,7 +12,8 @@ from PySide6.QtGui import QBrush, QColor, QFont, QPainter, QPainterPath, QPainte
 from PySide6.QtWidgets import QGraphicsItem, QGraphicsPathItem, QStyleOptionGraphicsItem, QWidget
 
 from app.canvas import style
-from core.model import BracedFrame, BracePattern, Element, Level, MomentFrame, Ring, ShearWall
+from app.kinds import app_kind
+from core.model import Element, Level, Ring
 
 PICK_PIXELS = 6.0
 """Half-width of an element's pick area, device pixels."""
@@ -114,7 +115,7 @@ class ElementItem(QGraphicsItem):
         self.prepareGeometryChange()
 
     def _margin(self) -> float:
-        thickness = self.element.properties.thickness if isinstance(self.element.properties, ShearWall) else 0.0
+        thickness = app_kind(self.element.kind).thickness(self.element.properties)
         return max(24.0 * _pixel(self), thickness)
 
     def boundingRect(self) -> QRectF:
@@ -154,7 +155,8 @@ def draw_element_symbol(
     """Draw ``element`` between device points ``a`` and ``b``; ``scale`` is device pixels per metre."""
     line = QLineF(a, b)
     length = line.length()
-    colour = style.KIND_COLOURS[element.kind]
+    spec = app_kind(element.kind)
+    colour = spec.colour
     if faint:
         painter.setPen(style.pen(style.BELOW, 1.4, Qt.PenStyle.DashLine))
         painter.drawLine(line)
@@ -171,73 +173,9 @@ def draw_element_symbol(
         return
     u = QPointF((b.x() - a.x()) / length, (b.y() - a.y()) / length)
     n = QPointF(-u.y(), u.x())
-    w = SYMBOL_PIXELS
-    properties = element.properties
-    if isinstance(properties, BracedFrame):
-        _draw_braced(painter, a, u, n, length, w, properties, colour)
-    elif isinstance(properties, ShearWall):
-        half = max(abs(scale) * properties.thickness / 2, 3.0)
-        fill = QColor(colour)
-        fill.setAlpha(200)
-        body = QPolygonF([a + n * half, b + n * half, b - n * half, a - n * half])
-        painter.setPen(style.pen(colour.darker(130), 1.0))
-        painter.setBrush(fill)
-        painter.drawPolygon(body)
-        w = half
-    elif isinstance(properties, MomentFrame):
-        painter.setPen(style.pen(colour, 2.4))
-        painter.drawLine(line)
-        painter.setBrush(colour)
-        painter.setPen(Qt.PenStyle.NoPen)
-        for i in range(properties.bays + 1):
-            c = a + u * (length * i / properties.bays)
-            painter.drawRect(QRectF(c.x() - w * 0.8, c.y() - w * 0.8, 1.6 * w, 1.6 * w))
-    else:
-        _draw_spring(painter, a, b, u, n, length, w, colour)
+    w = spec.draw_canvas(painter, a, u, n, length, SYMBOL_PIXELS, scale, element.properties, colour)
     if label:
         _draw_label(painter, element.id, (a + b) / 2, n, w + 9.0, colour)
-
-
-def _draw_braced(painter, a, u, n, length, w, properties: BracedFrame, colour: QColor) -> None:
-    painter.setPen(style.pen(colour, 1.6))
-    painter.setBrush(Qt.BrushStyle.NoBrush)
-    top, bottom = n * w, n * -w
-    b = a + u * length
-    painter.drawLine(QLineF(a + top, b + top))
-    painter.drawLine(QLineF(a + bottom, b + bottom))
-    bay = length / properties.bays
-    for i in range(properties.bays + 1):
-        c = a + u * (bay * i)
-        painter.drawLine(QLineF(c + top, c + bottom))
-    painter.setPen(style.pen(colour, 1.1))
-    for i in range(properties.bays):
-        left, right = a + u * (bay * i), a + u * (bay * (i + 1))
-        if properties.pattern is BracePattern.CROSS:
-            painter.drawLine(QLineF(left + bottom, right + top))
-            painter.drawLine(QLineF(left + top, right + bottom))
-        elif properties.pattern is BracePattern.SINGLE:
-            if i % 2 == 0:
-                painter.drawLine(QLineF(left + bottom, right + top))
-            else:
-                painter.drawLine(QLineF(left + top, right + bottom))
-        else:
-            apex = (left + right) / 2 + top
-            painter.drawLine(QLineF(left + bottom, apex))
-            painter.drawLine(QLineF(right + bottom, apex))
-
-
-def _draw_spring(painter, a, b, u, n, length, w, colour: QColor) -> None:
-    painter.setPen(style.pen(colour, 1.8))
-    painter.setBrush(Qt.BrushStyle.NoBrush)
-    lead = length * 0.3
-    teeth = 6
-    points = [a, a + u * lead]
-    step = (length - 2 * lead) / teeth
-    for i in range(teeth):
-        side = 1 if i % 2 == 0 else -1
-        points.append(a + u * (lead + step * (i + 0.5)) + n * (side * w * 1.2))
-    points += [a + u * (length - lead), b]
-    painter.drawPolyline(QPolygonF(points))
 
 
 def _draw_label(painter: QPainter, text: str, centre: QPointF, n: QPointF, offset: float, colour: QColor) -> None:

@@ -5,8 +5,6 @@ from __future__ import annotations
 from PySide6.QtCore import QRectF, Qt
 from PySide6.QtGui import QColor, QPainter, QPen
 
-from core.model import ElementKind
-
 PAPER = QColor("#f6f5f0")
 GRID_MINOR = QColor("#e7e4da")
 GRID_MAJOR = QColor("#d2cdbf")
@@ -24,20 +22,6 @@ SNAP = QColor("#d0560b")
 SELECTION = QColor(255, 176, 0, 110)
 CULPRIT = QColor(198, 21, 47, 120)
 HANDLE = QColor("#1d1d1b")
-
-KIND_COLOURS = {
-    ElementKind.BRACED_FRAME: QColor("#1f5fa8"),
-    ElementKind.SHEAR_WALL: QColor("#8a5a2b"),
-    ElementKind.MOMENT_FRAME: QColor("#2e7d4f"),
-    ElementKind.SPRING: QColor("#7a3fa0"),
-}
-
-KIND_LABELS = {
-    ElementKind.BRACED_FRAME: "Braced frame",
-    ElementKind.SHEAR_WALL: "Shear wall",
-    ElementKind.MOMENT_FRAME: "Moment frame",
-    ElementKind.SPRING: "Spring line",
-}
 
 MASS_CENTRE = QColor("#c2361b")
 RIGIDITY_CENTRE = QColor("#0b7d86")

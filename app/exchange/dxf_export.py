@@ -17,30 +17,23 @@ import ezdxf
 from ezdxf.enums import TextEntityAlignment
 
 from app.exchange.errors import ExchangeError
-from core.model import ElementKind, Point, Project
+from app.kinds import app_kind, app_kinds
+from core.model import Point, Project
 from core.results import Results
 
 APP_ID = "POISE"
 """Registered application name of the extended data that carries element ids."""
 
-ROLE_COLOURS: dict[str, int] = {
-    "OUTLINE": 7,
-    "OPENINGS": 8,
-    "BRACED": 5,
-    "WALLS": 1,
-    "MOMENT": 3,
-    "SPRINGS": 6,
-    "CENTRES": 30,
-    "LABELS": 7,
-}
-"""Roles of the layers of each level and their AutoCAD colour index (our own choice)."""
+PLAN_ROLE_COLOURS: dict[str, int] = {"OUTLINE": 7, "OPENINGS": 8}
+MARK_ROLE_COLOURS: dict[str, int] = {"CENTRES": 30, "LABELS": 7}
+"""Roles of the layers of each level besides the element kinds' (``app.kinds``: one layer per
+kind) and their AutoCAD colour index (our own choice)."""
 
-KIND_ROLES: dict[ElementKind, str] = {
-    ElementKind.BRACED_FRAME: "BRACED",
-    ElementKind.SHEAR_WALL: "WALLS",
-    ElementKind.MOMENT_FRAME: "MOMENT",
-    ElementKind.SPRING: "SPRINGS",
-}
+
+def role_colours() -> dict[str, int]:
+    """Every layer role of a level and its colour: outline and openings, the kinds, centres, labels."""
+    kinds = {spec.dxf_role: spec.dxf_colour for spec in app_kinds()}
+    return PLAN_ROLE_COLOURS | kinds | MARK_ROLE_COLOURS
 
 UNIT_CODES: dict[str, tuple[int, float]] = {"m": (6, 1.0), "mm": (4, 1000.0)}
 """$INSUNITS code and drawing units per metre of the two units Poise writes."""
@@ -86,7 +79,7 @@ def export_layout_dxf(
         return (point[0] * scale, point[1] * scale)
 
     for level in chosen:
-        for role, colour in ROLE_COLOURS.items():
+        for role, colour in role_colours().items():
             doc.layers.add(layer_name(level, role), color=colour)
         floor = project.levels[level - 1]
         msp.add_lwpolyline([at(p) for p in floor.outline], close=True,
@@ -100,7 +93,7 @@ def export_layout_dxf(
               TextEntityAlignment.BOTTOM_LEFT)
         for element in project.elements_in_storey(level):
             line = msp.add_line(at(element.start), at(element.end),
-                                dxfattribs={"layer": layer_name(level, KIND_ROLES[element.kind])})
+                                dxfattribs={"layer": layer_name(level, app_kind(element.kind).dxf_role)})
             line.set_xdata(APP_ID, [(1000, element.id)])
             _text(msp, element.id, at(element.midpoint), TEXT_HEIGHT * scale, labels,
                   TextEntityAlignment.BOTTOM_CENTER)

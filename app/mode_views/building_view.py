@@ -15,7 +15,8 @@ import pyqtgraph as pg
 from PySide6.QtCore import Qt, Signal
 from PySide6.QtGui import QBrush, QColor
 
-from app.canvas.style import KIND_COLOURS, MASS_CENTRE, PAPER, RIGIDITY_CENTRE, pen
+from app.canvas.style import MASS_CENTRE, PAPER, RIGIDITY_CENTRE, pen
+from app.kinds import app_kind, app_kinds
 from app.mode_views.items import FilledQuads, SegmentLines
 from app.mode_views.palette import MOVING_FLOOR, TEXT, UNDEFORMED
 from core.model import ElementKind
@@ -26,8 +27,6 @@ DEGREES_PER_PIXEL = 0.5
 """Turn of the view per pixel of mouse drag."""
 TRIAD_SHARE = 0.12
 """Length of the x, y, z arrows at the ground as a share of the plan size."""
-
-_LINE_KINDS = (ElementKind.BRACED_FRAME, ElementKind.MOMENT_FRAME, ElementKind.SPRING)
 
 
 class _TurntableBox(pg.ViewBox):
@@ -74,11 +73,11 @@ class BuildingMotionView(pg.PlotWidget):
         self._rest = SegmentLines(pen(UNDEFORMED, 1.0), z=0)
         self._triad = SegmentLines(pen(TEXT, 1.0), z=0)
         self._floors = SegmentLines(pen(MOVING_FLOOR, 1.5), z=2)
-        wall = QColor(KIND_COLOURS[ElementKind.SHEAR_WALL])
+        wall = QColor(app_kind(ElementKind.SHEAR_WALL).colour)
         wall_fill = QColor(wall)
         wall_fill.setAlpha(70)
         self._walls = FilledQuads(pen(wall, 1.0), QBrush(wall_fill), z=1)
-        self._lines = {kind: SegmentLines(pen(KIND_COLOURS[kind], 1.5), z=3) for kind in _LINE_KINDS}
+        self._lines = {spec.kind: SegmentLines(pen(spec.colour, 1.5), z=3) for spec in app_kinds()}
         self._mass_axis = SegmentLines(pen(MASS_CENTRE, 2.5), z=5)
         self._rigidity_axis = SegmentLines(pen(RIGIDITY_CENTRE, 2.5, Qt.PenStyle.DashLine), z=4)
         for line in (self._ground, self._rest, self._triad, self._floors, self._walls, *self._lines.values(),
@@ -111,8 +110,8 @@ class BuildingMotionView(pg.PlotWidget):
             "mass_axis": geometry.mass_axis,
             "rigidity_axis": geometry.rigidity_axis,
         }
-        for kind in _LINE_KINDS:
-            layers[kind.value] = geometry.frame_lines[kind]
+        for kind in self._lines:
+            layers[kind] = geometry.frame_lines[kind]
         self._geometry = geometry
         self._motion = LayerMotion(layers, floors, mode.shape, scale)
         x0, y0, x1, y1 = geometry.bounds
@@ -183,5 +182,5 @@ class BuildingMotionView(pg.PlotWidget):
         self._mass_axis.set_segments(frame["mass_axis"])
         self._rigidity_axis.set_segments(frame["rigidity_axis"])
         for kind, line in self._lines.items():
-            line.set_segments(frame[kind.value])
+            line.set_segments(frame[kind])
         self.frames_drawn += 1

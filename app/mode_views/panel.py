@@ -26,8 +26,9 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from app.canvas.style import DIAGNOSTIC, KIND_COLOURS, KIND_LABELS, MASS_CENTRE, RIGIDITY_CENTRE
+from app.canvas.style import DIAGNOSTIC, MASS_CENTRE, RIGIDITY_CENTRE
 from app.document import ProjectDocument
+from app.kinds import app_kinds
 from app.mode_views.building_view import BuildingMotionView
 from app.mode_views.charts import MassRatioChart, PeriodChart, ShapeChart
 from app.mode_views.clock import DEFAULT_CYCLE_SECONDS, ModeClock
@@ -65,7 +66,7 @@ def _key_html() -> str:
     parts = [
         f"<span style='color:{MASS_CENTRE.name()}'>&#8853;</span>&nbsp;centre of mass",
         f"<span style='color:{RIGIDITY_CENTRE.name()}'>&#9671;</span>&nbsp;centre of rigidity",
-        *(swatch(KIND_COLOURS[kind], KIND_LABELS[kind].lower()) for kind in KIND_COLOURS),
+        *(swatch(spec.colour, spec.label.lower()) for spec in app_kinds()),
         f"<span style='color:{UNDEFORMED.name()}'>&#9633;</span>&nbsp;at rest",
     ]
     return " &nbsp; ".join(parts)

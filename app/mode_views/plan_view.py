@@ -8,19 +8,12 @@ import numpy as np
 import pyqtgraph as pg
 from PySide6.QtWidgets import QGraphicsItem
 
-from app.canvas.style import KIND_COLOURS, MASS_CENTRE, PAPER, RIGIDITY_CENTRE, pen
+from app.canvas.style import MASS_CENTRE, PAPER, RIGIDITY_CENTRE, pen
+from app.kinds import app_kinds
 from app.mode_views.items import SegmentLines
 from app.mode_views.palette import MOVING_FLOOR, OTHER_FLOORS, UNDEFORMED
-from core.model import ElementKind
 from core.report.mode_frames import AttachedPoints, BuildingGeometry, LayerMotion
 from core.results import FloorMass, Mode
-
-_KIND_WIDTH = {
-    ElementKind.BRACED_FRAME: 4.0,
-    ElementKind.SHEAR_WALL: 6.0,
-    ElementKind.MOMENT_FRAME: 4.0,
-    ElementKind.SPRING: 3.0,
-}
 
 
 class PlanMotionView(pg.PlotWidget):
@@ -47,7 +40,9 @@ class PlanMotionView(pg.PlotWidget):
         self._rest_markers = SegmentLines(pen(UNDEFORMED, 1.0), z=0)
         self._other_floors = SegmentLines(pen(OTHER_FLOORS, 1.0), z=1)
         self._floor = SegmentLines(pen(MOVING_FLOOR, 1.5), z=2)
-        self._elements = {kind: SegmentLines(pen(KIND_COLOURS[kind], _KIND_WIDTH[kind]), z=3) for kind in ElementKind}
+        self._elements = {
+            spec.kind: SegmentLines(pen(spec.colour, spec.mode_line_width), z=3) for spec in app_kinds()
+        }
         self._mass = SegmentLines(pen(MASS_CENTRE, 2.0), z=5)
         self._rigidity = SegmentLines(pen(RIGIDITY_CENTRE, 2.0), z=4)
         for line in (self._rest_outlines, self._rest_markers, self._other_floors, self._floor,
@@ -78,8 +73,8 @@ class PlanMotionView(pg.PlotWidget):
             "mass": geometry.mass_markers.on_floor(floor),
             "rigidity": geometry.rigidity_markers.on_floor(floor),
         }
-        for kind in ElementKind:
-            layers[kind.value] = geometry.plan_elements[kind].on_floor(floor)
+        for kind in self._elements:
+            layers[kind] = geometry.plan_elements[kind].on_floor(floor)
         self._motion = LayerMotion(layers, floors, mode.shape, scale)
         rest = self._motion.undeformed()
         self._rest_outlines.set_segments(geometry.outlines.xy)
@@ -115,5 +110,5 @@ class PlanMotionView(pg.PlotWidget):
         self._mass.set_segments(frame["mass"])
         self._rigidity.set_segments(frame["rigidity"])
         for kind, line in self._elements.items():
-            line.set_segments(frame[kind.value])
+            line.set_segments(frame[kind])
         self.frames_drawn += 1

@@ -10,65 +10,36 @@ import dataclasses
 
 from PySide6.QtWidgets import QLabel, QScrollArea, QVBoxLayout, QWidget
 
-from app.canvas.style import KIND_LABELS
 from app.commands import respan, set_length_and_angle
 from app.document import ProjectDocument
+from app.kinds import app_kind, app_kinds
 from app.panels.fields import FieldForm, Row
 from app.units import (
     ACCELERATION,
-    AREA,
     DEGREES,
     DRIFT,
-    INERTIA,
     LENGTH,
-    MODULUS,
     PERCENT,
     PLAIN,
     SECONDS,
-    STIFFNESS,
-    THICKNESS,
     degrees_of,
 )
 from core.errors import ModelError
 from core.lateral.rules import registered_rule_sets, rules_for
 from core.model import (
-    CONCRETE_E,
-    STEEL_E,
-    BracedFrame,
-    BracePattern,
     Element,
     Kind,
     LoadMethod,
-    Material,
-    MomentFrame,
     Project,
-    ShearWall,
-    Spring,
     SystemType,
     default_properties,
 )
-
-
-def _material_of(element: Element) -> str:
-    modulus = getattr(element.properties, "modulus", None)
-    if modulus == STEEL_E:
-        return Material.STEEL.value
-    if modulus == CONCRETE_E:
-        return Material.CONCRETE.value
-    return "custom"
 
 
 def _with_kind(element: Element, kind: Kind) -> Element:
     if kind is element.kind:
         return element
     return dataclasses.replace(element, properties=default_properties(kind, storeys=element.storey_count))
-
-
-def _with_material(element: Element, material: str) -> Element:
-    if material == "custom" or material == _material_of(element):
-        return element
-    properties = default_properties(element.kind, Material(material), element.storey_count)
-    return dataclasses.replace(element, properties=properties)
 
 
 def _with_angle(element: Element, angle: float) -> Element:
@@ -93,7 +64,7 @@ def element_rows(project: Project, elements: list[Element]) -> list[Row]:
         Row(
             "Kind",
             kind="choice",
-            choices=[(label, kind) for kind, label in KIND_LABELS.items()],
+            choices=[(spec.label, spec.kind) for spec in app_kinds()],
             getter=lambda e: e.kind,
             setter=_with_kind,
             tip="Changing the kind gives the element that kind's default sections.",
@@ -144,73 +115,7 @@ def element_rows(project: Project, elements: list[Element]) -> list[Row]:
         ]
     if len(kinds) != 1:
         return rows
-    sample = elements[0].properties
-    materials = [("Steel", Material.STEEL.value), ("Concrete", Material.CONCRETE.value), ("Custom", "custom")]
-    if isinstance(sample, BracedFrame):
-        rows += [
-            Row(
-                "Brace pattern",
-                "properties.pattern",
-                "choice",
-                choices=[
-                    ("X (two diagonals)", BracePattern.CROSS),
-                    ("Single diagonal", BracePattern.SINGLE),
-                    ("Chevron", BracePattern.CHEVRON),
-                ],
-            ),
-            Row("Bays", "properties.bays", "int"),
-            Row(
-                "Tension only", "properties.tension_only", "check", tip="Cross pattern: the compression brace buckles."
-            ),
-            Row("Brace area", "properties.brace_area", "number", AREA),
-            Row("Column area", "properties.column_area", "number", AREA),
-            Row("Beam area", "properties.beam_area", "number", AREA),
-            Row("Beam I", "properties.beam_inertia", "number", INERTIA, tip="Matters for the chevron pattern."),
-            Row("Modulus E", "properties.modulus", "number", MODULUS),
-        ]
-    elif isinstance(sample, ShearWall):
-        rows += [
-            Row(
-                "Material",
-                kind="choice",
-                choices=materials,
-                getter=_material_of,
-                setter=_with_material,
-                tip="Sets the material's typical wall (concrete 250 mm cracked, or a steel plate).",
-            ),
-            Row("Thickness", "properties.thickness", "number", THICKNESS),
-            Row("Modulus E", "properties.modulus", "number", MODULUS),
-            Row("Poisson ratio", "properties.poisson", "number", PLAIN),
-            Row(
-                "Stiffness factor",
-                "properties.stiffness_factor",
-                "number",
-                PLAIN,
-                tip="Effective share of the gross stiffness after cracking (EN 1998-1 §4.3.1(7): 0.5).",
-            ),
-        ]
-    elif isinstance(sample, MomentFrame):
-        rows += [
-            Row("Material", kind="choice", choices=materials, getter=_material_of, setter=_with_material),
-            Row("Bays", "properties.bays", "int"),
-            Row("Column I", "properties.column_inertia", "number", INERTIA),
-            Row("Column area", "properties.column_area", "number", AREA),
-            Row("Beam I", "properties.beam_inertia", "number", INERTIA),
-            Row("Beam area", "properties.beam_area", "number", AREA),
-            Row("Modulus E", "properties.modulus", "number", MODULUS),
-            Row("Stiffness factor", "properties.stiffness_factor", "number", PLAIN),
-        ]
-    elif isinstance(sample, Spring):
-        rows.append(
-            Row(
-                "Storey stiffness",
-                "properties.storey_stiffness",
-                "numbers",
-                STIFFNESS,
-                tip="One value per storey spanned, bottom storey first, separated by commas.",
-            )
-        )
-    return rows
+    return rows + app_kind(elements[0].kind).property_rows()
 
 
 OWN_LIMIT = "own"
@@ -357,7 +262,7 @@ class PropertiesPanel(QWidget):
         project = self.document.project
         elements = self.selected()
         if elements:
-            kinds = {KIND_LABELS[e.kind] for e in elements}
+            kinds = {app_kind(e.kind).label for e in elements}
             names = ", ".join(e.id for e in elements[:6]) + (" …" if len(elements) > 6 else "")
             self.heading.setText(f"{' / '.join(sorted(kinds))}: {names}")
             self.form.set_rows(element_rows(project, elements))

@@ -12,16 +12,13 @@ import math
 from dataclasses import dataclass
 
 from app.figures import verdict_figures
+from app.kinds import app_kinds
 from core.lateral.cases import DIRECTIONS
 from core.lateral.records import STATUS_ORDER, Check, LateralResults, Status, Verdict
 from core.model import (
-    BracedFrame,
-    ElementKind,
     LoadMethod,
-    MomentFrame,
     Project,
     Settings,
-    ShearWall,
 )
 from core.report.summary import CAUTION
 from core.results import Mode, Results
@@ -255,21 +252,12 @@ def _spectrum_text(settings: Settings) -> str:
 
 
 def _stiffness_text(project: Project) -> str:
+    """How each kind present enters the stiffness, in the order the kinds are registered."""
     parts = []
-    walls = sorted({e.properties.stiffness_factor for e in project.elements if isinstance(e.properties, ShearWall)})
-    if walls:
-        parts.append("walls " + ", ".join(f"{f:g}" for f in walls) + " of gross")
-    frames = sorted(
-        {e.properties.stiffness_factor for e in project.elements if isinstance(e.properties, MomentFrame)}
-    )
-    if frames:
-        parts.append("moment frames " + ", ".join(f"{f:g}" for f in frames) + " of gross")
-    braces = [e.properties for e in project.elements if isinstance(e.properties, BracedFrame)]
-    if braces:
-        tension_only = any(b.tension_only for b in braces)
-        parts.append("braced frames gross, " + ("some tension-only" if tension_only else "braces act both ways"))
-    if any(e.kind is ElementKind.SPRING for e in project.elements):
-        parts.append("springs as given")
+    for spec in app_kinds():
+        of_kind = [e.properties for e in project.elements if e.kind == spec.kind]
+        if of_kind:
+            parts.append(spec.stiffness_note(of_kind))
     return "Stiffness factors: " + ("; ".join(parts) if parts else "no elements") + "."
 
 

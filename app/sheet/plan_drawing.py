@@ -10,7 +10,6 @@ joints, springs are dashed with a coil.
 
 from __future__ import annotations
 
-import itertools
 import math
 from collections.abc import Sequence
 from dataclasses import dataclass
@@ -18,19 +17,10 @@ from dataclasses import dataclass
 from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QBrush, QColor, QPainterPath, QPolygonF
 
-from app.canvas.style import KIND_COLOURS, KIND_LABELS, MASS_CENTRE, RIGIDITY_CENTRE
+from app.canvas.style import MASS_CENTRE, RIGIDITY_CENTRE
+from app.kinds import app_kind, app_kinds
 from app.sheet.painting import ALIGN_CENTRE, ALIGN_LEFT, ALIGN_RIGHT, INK, MUTED, Paper
-from core.model import (
-    BracedFrame,
-    BracePattern,
-    Element,
-    ElementKind,
-    MomentFrame,
-    Point,
-    Project,
-    ShearWall,
-    default_properties,
-)
+from core.model import Element, Kind, Point, Project, default_properties
 from core.results import Results
 
 MASS_COLOUR = MASS_CENTRE
@@ -45,8 +35,6 @@ MARKER_MM = 1.7
 """Radius of the centre symbols on paper, mm."""
 FOOT_MM = 5.0
 """Strip kept free at the foot of the plan for the axes and the scale bar, mm."""
-WALL_MIN_MM = 0.9
-"""Walls thinner than this on paper are drawn this thick, so they stay visible."""
 
 
 @dataclass(frozen=True)
@@ -120,71 +108,11 @@ def _unit(a: QPointF, b: QPointF) -> tuple[float, float]:
 
 
 def draw_element(paper: Paper, scale: PlanScale, element: Element) -> None:
-    """One element in its kind's symbol (see the module docstring)."""
-    painter = paper.painter
-    colour = KIND_COLOURS[element.kind]
+    """One element in its kind's sheet symbol (see the module docstring)."""
+    spec = app_kind(element.kind)
     a, b = scale.at(element.start), scale.at(element.end)
     ux, uy = _unit(a, b)
-    nx, ny = -uy, ux
-    props = element.properties
-    if isinstance(props, ShearWall):
-        thickness = max(props.thickness * scale.factor, paper.mm(WALL_MIN_MM))
-        half = thickness / 2
-        corners = [QPointF(a.x() + nx * half, a.y() + ny * half), QPointF(b.x() + nx * half, b.y() + ny * half),
-                   QPointF(b.x() - nx * half, b.y() - ny * half), QPointF(a.x() - nx * half, a.y() - ny * half)]
-        painter.setPen(Qt.PenStyle.NoPen)
-        painter.setBrush(QBrush(colour))
-        painter.drawPolygon(QPolygonF(corners))
-        return
-    if element.kind is ElementKind.SPRING:
-        painter.setPen(paper.pen(colour, 0.35, Qt.PenStyle.DashLine))
-        painter.drawLine(a, b)
-        _coil(paper, a, b, colour)
-        return
-    painter.setPen(paper.pen(colour, 0.45))
-    painter.drawLine(a, b)
-    bays = props.bays if isinstance(props, BracedFrame | MomentFrame) else 1
-    nodes = [QPointF(a.x() + (b.x() - a.x()) * t / bays, a.y() + (b.y() - a.y()) * t / bays) for t in range(bays + 1)]
-    if isinstance(props, MomentFrame):
-        painter.setPen(Qt.PenStyle.NoPen)
-        painter.setBrush(QBrush(colour))
-        s = paper.mm(0.7)
-        for node in nodes:
-            painter.drawRect(QRectF(node.x() - s, node.y() - s, 2 * s, 2 * s))
-        return
-    assert isinstance(props, BracedFrame)
-    h = paper.mm(1.1)
-    painter.setPen(paper.pen(colour, 0.25))
-    for p, q in itertools.pairwise(nodes):
-        bay = math.hypot(q.x() - p.x(), q.y() - p.y())
-        half = min(h, 0.4 * bay)
-        m = QPointF((p.x() + q.x()) / 2, (p.y() + q.y()) / 2)
-
-        def at(along: float, across: float, m: QPointF = m) -> QPointF:
-            return QPointF(m.x() + ux * along + nx * across, m.y() + uy * along + ny * across)
-
-        if props.pattern is BracePattern.CROSS:
-            painter.drawLine(at(-half, -half), at(half, half))
-            painter.drawLine(at(-half, half), at(half, -half))
-        elif props.pattern is BracePattern.SINGLE:
-            painter.drawLine(at(-half, -half), at(half, half))
-        else:
-            painter.drawLine(at(-half, -half), at(0, half))
-            painter.drawLine(at(0, half), at(half, -half))
-
-
-def _coil(paper: Paper, a: QPointF, b: QPointF, colour: QColor) -> None:
-    ux, uy = _unit(a, b)
-    nx, ny = -uy, ux
-    m = QPointF((a.x() + b.x()) / 2, (a.y() + b.y()) / 2)
-    step, amp = paper.mm(0.45), paper.mm(0.9)
-    points = []
-    for i in range(-4, 5):
-        across = 0.0 if abs(i) == 4 else (amp if i % 2 else -amp)
-        points.append(QPointF(m.x() + ux * step * i + nx * across, m.y() + uy * step * i + ny * across))
-    painter = paper.painter
-    painter.setPen(paper.pen(colour, 0.3))
-    painter.drawPolyline(QPolygonF(points))
+    spec.draw_sheet(paper, a, b, (ux, uy), (-uy, ux), scale.factor, element.properties, spec.colour)
 
 
 class LabelPlacer:
@@ -268,7 +196,7 @@ def draw_plan(paper: Paper, box: QRectF, project: Project, results: Results, lev
     placer = LabelPlacer(paper, keep_out)
     font = paper.font(6.5, bold=True)
     for element in elements:
-        placer.place(element.id, font, _label_candidates(paper, scale, element), KIND_COLOURS[element.kind])
+        placer.place(element.id, font, _label_candidates(paper, scale, element), app_kind(element.kind).colour)
     small = paper.font(6.0, bold=True)
     offsets = [(1, -1), (1, 1), (-1, -1), (-1, 1)]
     d = paper.mm(MARKER_MM + 2.2)
@@ -354,14 +282,16 @@ def _scale_bar(paper: Paper, box: QRectF, scale: PlanScale) -> None:
                ALIGN_RIGHT)
 
 
-def draw_legend(paper: Paper, box: QRectF, kinds: Sequence[ElementKind], with_rigidity: bool) -> float:
+def draw_legend(paper: Paper, box: QRectF, kinds: Sequence[Kind], with_rigidity: bool) -> float:
     """One line (wrapping if needed) of symbol + word for the kinds shown and the centres; returns
     the height used."""
     font = paper.font(6.0)
     swatch = paper.mm(6.0)
     gap = paper.mm(3.0)
     line = paper.line_height(font) * 1.25
-    entries: list[tuple[str, ElementKind | str]] = [(KIND_LABELS[k].lower(), k) for k in ElementKind if k in kinds]
+    entries: list[tuple[str, Element | str]] = [
+        (spec.label.lower(), _legend_sample(spec.kind)) for spec in app_kinds() if spec.kind in kinds
+    ]
     entries.append(("centre of mass", "mass"))
     if with_rigidity:
         entries.append(("centre of rigidity", "rigidity"))
@@ -371,10 +301,8 @@ def draw_legend(paper: Paper, box: QRectF, kinds: Sequence[ElementKind], with_ri
         if x + width > box.right() and x > box.left():
             x, y = box.left(), y + line
         mid = QPointF(x + swatch / 2, y + line / 2)
-        if isinstance(what, ElementKind):
-            half = swatch / 2
-            sample = Element("legend", (0.0, 0.0), (1.0, 0.0), 0, 1, default_properties(what))
-            _draw_swatch(paper, mid, half, sample)
+        if isinstance(what, Element):
+            _draw_swatch(paper, mid, swatch / 2, what)
         elif what == "mass":
             mass_centre_mark(paper, mid, radius_mm=1.3)
         else:
@@ -386,8 +314,12 @@ def draw_legend(paper: Paper, box: QRectF, kinds: Sequence[ElementKind], with_ri
 
 def _draw_swatch(paper: Paper, mid: QPointF, half: float, element: Element) -> None:
     """The element symbol drawn over ``2·half`` device units centred on ``mid``."""
-    factor = 2 * half
-    scale = PlanScale(factor, QPointF(mid.x() - half, mid.y()), None)
-    if isinstance(element.properties, ShearWall):
-        element = Element(element.id, element.start, element.end, 0, 1, ShearWall(thickness=0.18))
-    draw_element(paper, scale, element)
+    draw_element(paper, PlanScale(2 * half, QPointF(mid.x() - half, mid.y()), None), element)
+
+
+def _legend_sample(kind: Kind) -> Element:
+    """A 1 m element of ``kind`` with the legend's properties (the kind's defaults unless it says)."""
+    properties = app_kind(kind).legend_properties
+    if properties is None:
+        properties = default_properties(kind)
+    return Element("legend", (0.0, 0.0), (1.0, 0.0), 0, 1, properties)

@@ -12,11 +12,11 @@ import math
 from PySide6.QtCore import QObject, Qt, Signal
 from PySide6.QtGui import QKeyEvent
 
-from app.canvas.style import KIND_LABELS
 from app.commands import add_elements, new_element
+from app.kinds import AppKindSpec
 from app.tools.base import PlanEvent, Tool
 from app.units import degrees_of
-from core.model import ElementKind, Point, Project
+from core.model import Point, Project
 
 MIN_LENGTH = 0.05
 """Shortest element one can place, m."""
@@ -50,14 +50,14 @@ class PlacementRange(QObject):
 class PlaceElementTool(Tool):
     typed_fields = ("Length, m", "Angle, °")
 
-    def __init__(self, view, kind: ElementKind, placement: PlacementRange) -> None:
+    def __init__(self, view, spec: AppKindSpec, placement: PlacementRange) -> None:
         super().__init__(view)
-        self.kind = kind
+        self.kind = spec.kind
         self.placement = placement
-        self.name = f"place-{kind.value}"
-        self.title = KIND_LABELS[kind]
-        self.icon = kind.value
-        self.shortcut = {"braced_frame": "B", "shear_wall": "W", "moment_frame": "M", "spring": "K"}[kind.value]
+        self.name = f"place-{spec.kind}"
+        self.title = spec.label
+        self.icon = spec.icon
+        self.shortcut = spec.shortcut
         self._start: Point | None = None
         self._press_pos = None
         self._end: Point | None = None
