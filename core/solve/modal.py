@@ -106,6 +106,33 @@ def scaled_eigen(K: FloatArray, mass: FloatArray) -> ScaledEigen:
     return ScaledEigen(values, vectors, scale)
 
 
+EQUAL_PERIODS = 1.0e-6
+"""Relative difference of ω² below which two modes count as having one period (a symmetric plan)."""
+
+
+def aligned_to_axes(values: FloatArray, vectors: FloatArray, directions: FloatArray) -> FloatArray:
+    """``vectors`` with each group of equal eigenvalues turned within its own space so that the
+    first vector of the group takes all the group's participation along ``directions[0]`` (x, in
+    the scaled space), the next along ``directions[1]`` (y), and so on.
+
+    Any orthonormal basis of a repeated eigenvalue's space is a valid set of modes; the solver
+    returns an arbitrary one (a symmetric plan gives a pair "97 % x, 3 % y"). Turning the pair to
+    the plan axes gives modes that are pure x and pure y where the plan allows it."""
+    out = vectors.copy()
+    start = 0
+    n = len(values)
+    while start < n:
+        end = start + 1
+        while end < n and values[end] - values[start] <= EQUAL_PERIODS * abs(values[end]):
+            end += 1
+        if end - start > 1:
+            group = vectors[:, start:end]
+            q, _ = np.linalg.qr(group.T @ directions.T, mode="complete")
+            out[:, start:end] = group @ q
+        start = end
+    return out
+
+
 def modal_analysis(
     K: FloatArray, M: FloatArray, floors: tuple[FloorMass, ...], eigen: ScaledEigen | None = None
 ) -> tuple[Mode, ...]:
@@ -124,12 +151,12 @@ def modal_analysis(
     largest = max(abs(eigenvalues[-1]), 1e-300)
     if eigenvalues[0] <= SINGULAR_TOLERANCE * largest:
         raise AnalysisError("the lateral stiffness is singular: some floor can move without resistance")
-    phi = vectors * scale[:, None]
+    iota = influence_vectors(floors)
+    phi = aligned_to_axes(eigenvalues, vectors, iota / scale[None, :]) * scale[:, None]
     # A deterministic sign: the largest component of each mode is positive.
     peak = np.argmax(np.abs(phi), axis=0)
     phi = np.where(phi[peak, np.arange(phi.shape[1])] < 0, -phi, phi)
 
-    iota = influence_vectors(floors)
     totals = np.einsum("ri,i,ri->r", iota, m, iota)
     gammas = (phi.T * m) @ iota.T  # (modes, 3)
     ratios = gammas**2 / totals
