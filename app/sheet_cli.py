@@ -12,9 +12,8 @@ import os
 import sys
 from pathlib import Path
 
+from app.cli import BAD_INPUT
 from core.errors import AnalysisError, ModelError
-
-BAD_INPUT = 2
 
 
 def add_sheet_command(subparsers: argparse._SubParsersAction) -> argparse.ArgumentParser:

@@ -8,7 +8,7 @@ scene for ``pixel`` (metres per device pixel) to size their bounding box and pic
 from __future__ import annotations
 
 from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
-from PySide6.QtGui import QBrush, QColor, QFont, QPainter, QPainterPath, QPainterPathStroker, QPolygonF
+from PySide6.QtGui import QBrush, QColor, QPainter, QPainterPath, QPainterPathStroker, QPolygonF
 from PySide6.QtWidgets import QGraphicsItem, QGraphicsPathItem, QStyleOptionGraphicsItem, QWidget
 
 from app.canvas import style
@@ -19,7 +19,6 @@ PICK_PIXELS = 6.0
 """Half-width of an element's pick area, device pixels."""
 SYMBOL_PIXELS = 5.0
 """Half-width of the braced-frame band, zigzag amplitude and joint size, device pixels."""
-LABEL_FONT = QFont("DejaVu Sans", 8)
 
 
 def ring_polygon(ring: Ring) -> QPolygonF:
@@ -179,7 +178,7 @@ def draw_element_symbol(
 
 
 def _draw_label(painter: QPainter, text: str, centre: QPointF, n: QPointF, offset: float, colour: QColor) -> None:
-    painter.setFont(LABEL_FONT)
+    painter.setFont(style.LABEL_FONT)
     metrics = painter.fontMetrics()
     width, height = metrics.horizontalAdvance(text) + 6, metrics.height()
     # Put the label on the side of the line that is up or left on screen.

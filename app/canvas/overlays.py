@@ -12,14 +12,12 @@ import math
 from dataclasses import dataclass
 
 from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
-from PySide6.QtGui import QBrush, QColor, QFont, QPainter, QPolygonF
+from PySide6.QtGui import QBrush, QColor, QPainter, QPolygonF
 from PySide6.QtWidgets import QGraphicsItem, QStyleOptionGraphicsItem, QWidget
 
 from app.canvas import style
 from core.model import Point
 from core.results import Results
-
-LABEL_FONT = QFont("DejaVu Sans", 8)
 
 
 @dataclass(frozen=True)
@@ -146,7 +144,7 @@ def _arrow(painter: QPainter, a: QPointF, b: QPointF) -> None:
 
 def _label(painter: QPainter, at: QPointF, u: QPointF, text: str, colour: QColor) -> None:
     """A boxed label beside the symbol at ``at``, pushed out along the unit vector ``u``."""
-    painter.setFont(LABEL_FONT)
+    painter.setFont(style.LABEL_FONT)
     metrics = painter.fontMetrics()
     w, h = metrics.horizontalAdvance(text) + 8, metrics.height()
     gap = 13.0

@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 from PySide6.QtCore import QRectF, Qt
-from PySide6.QtGui import QColor, QPainter, QPen
+from PySide6.QtGui import QColor, QFont, QPainter, QPen
 
 PAPER = QColor("#f6f5f0")
 GRID_MINOR = QColor("#e7e4da")
@@ -22,6 +22,9 @@ SNAP = QColor("#d0560b")
 SELECTION = QColor(255, 176, 0, 110)
 CULPRIT = QColor(198, 21, 47, 120)
 HANDLE = QColor("#1d1d1b")
+
+LABEL_FONT = QFont("DejaVu Sans", 8)
+"""Element ids and the centres' letters on the canvas."""
 
 MASS_CENTRE = QColor("#c2361b")
 RIGIDITY_CENTRE = QColor("#0b7d86")

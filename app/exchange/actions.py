@@ -24,6 +24,7 @@ from PySide6.QtPrintSupport import QPrintDialog, QPrinter, QPrintPreviewDialog
 from PySide6.QtWidgets import QDialog, QFileDialog, QInputDialog, QMenu, QMessageBox, QWidget
 
 from app import commands
+from app.action_factory import make_action
 from app.exchange.csv_export import export_csv
 from app.exchange.dxf_export import export_layout_dxf
 from app.exchange.dxf_underlay import UNIT_CHOICES, ClosedPolyline, Underlay, read_underlay
@@ -62,11 +63,7 @@ class ExchangeActions(QObject):
         self.png_action = self._action("Save view as P&NG…", self.export_png)
 
     def _action(self, text: str, slot: Callable[[], object], shortcut: Any = None) -> QAction:
-        action = QAction(text, self.window)
-        if shortcut is not None:
-            action.setShortcut(QKeySequence(shortcut))
-        action.triggered.connect(lambda _checked=False: self._guarded(text, slot))
-        return action
+        return make_action(self.window, text, lambda: self._guarded(text, slot), shortcut)
 
     def _guarded(self, title: str, slot: Callable[[], object]) -> None:
         """Run an action; any failure becomes a message box (the GUI boundary: never a crash)."""

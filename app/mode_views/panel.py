@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING
 
-from PySide6.QtCore import Qt, QTimer
+from PySide6.QtCore import Qt
 from PySide6.QtGui import QAction, QColor, QHideEvent, QResizeEvent, QShowEvent
 from PySide6.QtWidgets import (
     QComboBox,
@@ -28,6 +28,7 @@ from PySide6.QtWidgets import (
 
 from app.canvas.style import DIAGNOSTIC, MASS_CENTRE, RIGIDITY_CENTRE
 from app.document import ProjectDocument
+from app.drag_throttle import DragThrottle
 from app.kinds import app_kinds
 from app.mode_views.building_view import BuildingMotionView
 from app.mode_views.charts import MassRatioChart, PeriodChart, ShapeChart
@@ -96,10 +97,7 @@ class ModeViewsPanel(QWidget):
         """False while the dock holding the panel has its tab behind another."""
         self._stale = True
         """The document changed while the panel was off screen."""
-        self._drag_timer = QTimer(self)
-        self._drag_timer.setSingleShot(True)
-        self._drag_timer.setInterval(DRAG_REFRESH_MS)
-        self._drag_timer.timeout.connect(self.refresh)
+        self._throttle = DragThrottle(document, DRAG_REFRESH_MS, self.refresh, lambda: self.on_screen, self)
         self._build_controls()
         self._build_layout()
         self._connect()
@@ -227,8 +225,7 @@ class ModeViewsPanel(QWidget):
 
     def _connect(self) -> None:
         document = self.document
-        document.results_changed.connect(self._results_changed)
-        document.preview_changed.connect(self._preview_changed)
+        document.preview_changed.connect(self._update_ticking)
         document.mode_selected.connect(self.select_mode)
         document.current_level_changed.connect(self._follow_level)
         self.clock.phase_changed.connect(self._draw_frame)
@@ -249,26 +246,12 @@ class ModeViewsPanel(QWidget):
     def on_screen(self) -> bool:
         return self._shown and self._on_screen
 
-    def _results_changed(self) -> None:
-        """Follow every committed change at once, and a drag's previews at most every DRAG_REFRESH_MS."""
-        if self.document.previewing and self.on_screen:
-            if not self._drag_timer.isActive():
-                self._drag_timer.start()
-            return
-        self.refresh()
-
-    def _preview_changed(self) -> None:
-        """A drag ended: show its final state now rather than when the throttle timer fires."""
-        if not self.document.previewing and self._drag_timer.isActive():
-            self.refresh()
-        self._update_ticking()
-
     def refresh(self) -> None:
         """Rebuild from the document's latest results; the animation carries on from its phase.
 
         Off screen the work waits (``_stale``) until the panel is shown again, so a drag in the
         editor pays nothing for a panel behind another tab."""
-        self._drag_timer.stop()
+        self._throttle.cancel()
         if not self.on_screen:
             self._stale = True
             self._update_ticking()

@@ -8,7 +8,7 @@ from __future__ import annotations
 
 import math
 
-from PySide6.QtCore import QAbstractTableModel, QModelIndex, QPersistentModelIndex, Qt, QTimer, Signal
+from PySide6.QtCore import QAbstractTableModel, QModelIndex, QPersistentModelIndex, Qt, Signal
 from PySide6.QtGui import QAction, QGuiApplication, QKeySequence
 from PySide6.QtWidgets import (
     QAbstractItemView,
@@ -23,6 +23,7 @@ from PySide6.QtWidgets import (
 )
 
 from app.document import ProjectDocument
+from app.drag_throttle import DragThrottle
 from core.results import Mode, ModeKind, Results
 
 CAUTION = (
@@ -252,28 +253,16 @@ class TablesPanel(QWidget):
         self.storeys.row_clicked.connect(lambda row: document.set_current_level(row + 1))
         self.elements.row_clicked.connect(self._element_clicked)
         self._stale = True
-        self._timer = QTimer(self)
-        self._timer.setSingleShot(True)
-        self._timer.setInterval(TABLE_REFRESH_MS)
-        self._timer.timeout.connect(self.refresh)
-        document.results_changed.connect(self._results_changed)
-        document.preview_changed.connect(self._preview_changed)
+        self._throttle = DragThrottle(document, TABLE_REFRESH_MS, self._follow, self.isVisible, self)
         self.refresh()
 
-    def _results_changed(self) -> None:
-        self._stale = True
-        if not self.isVisible():
-            return  # brought up to date when shown
-        if self.document.previewing:
-            if not self._timer.isActive():
-                self._timer.start()
+    def _follow(self) -> None:
+        """The results changed: refresh now if shown, else when shown."""
+        if self.isVisible():
+            self.refresh()
         else:
-            self.refresh()
-
-    def _preview_changed(self) -> None:
-        """A drag ended: show its final state now rather than when the throttle timer fires."""
-        if not self.document.previewing and self._timer.isActive():
-            self.refresh()
+            self._throttle.cancel()
+            self._stale = True
 
     def showEvent(self, event) -> None:
         super().showEvent(event)
@@ -281,7 +270,7 @@ class TablesPanel(QWidget):
             self.refresh()
 
     def refresh(self) -> None:
-        self._timer.stop()
+        self._throttle.cancel()
         self._stale = False
         results = self.document.results
         for table, contents in (

@@ -8,6 +8,7 @@ typed values (a length and an angle, or a width and a depth) through :meth:`Tool
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 from typing import TYPE_CHECKING
 
@@ -43,6 +44,16 @@ class PlanEvent:
     def toggle(self) -> bool:
         """Ctrl or Shift: add to / remove from the selection."""
         return bool(self.modifiers & (Qt.KeyboardModifier.ShiftModifier | Qt.KeyboardModifier.ControlModifier))
+
+
+CLICK_PIXELS = 4.0
+"""A press and release closer than this on screen are a click, not a drag."""
+
+
+def dragged(press_pos: QPointF, release: PlanEvent) -> bool:
+    """True when the cursor moved more than a click's tolerance between the press and ``release``."""
+    d = release.view_pos - press_pos
+    return math.hypot(d.x(), d.y()) > CLICK_PIXELS
 
 
 class Tool(QObject):

@@ -14,14 +14,12 @@ from PySide6.QtGui import QKeyEvent
 
 from app.commands import add_elements, new_element
 from app.kinds import AppKindSpec
-from app.tools.base import PlanEvent, Tool
+from app.tools.base import PlanEvent, Tool, dragged
 from app.units import degrees_of
 from core.model import Point, Project
 
 MIN_LENGTH = 0.05
 """Shortest element one can place, m."""
-CLICK_PIXELS = 4.0
-"""A press and release closer than this are a click (the end comes with a second click)."""
 
 
 class PlacementRange(QObject):
@@ -105,9 +103,9 @@ class PlaceElementTool(Tool):
     def release(self, event: PlanEvent) -> None:
         if self._start is None or self._press_pos is None:
             return
-        d = event.view_pos - self._press_pos
+        moved = dragged(self._press_pos, event)
         self._press_pos = None
-        if math.hypot(d.x(), d.y()) > CLICK_PIXELS and math.dist(self._start, event.point) >= MIN_LENGTH:
+        if moved and math.dist(self._start, event.point) >= MIN_LENGTH:
             self._commit(event.point)
 
     def _commit(self, end: Point) -> None:

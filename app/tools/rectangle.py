@@ -3,17 +3,13 @@ one corner and type the width and depth (negative values go left or down)."""
 
 from __future__ import annotations
 
-import math
-
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QKeyEvent
 
-from app.tools.base import PlanEvent, Tool
+from app.tools.base import PlanEvent, Tool, dragged
 from app.tools.outline import OUTLINE, commit_shape
 from app.tools.temporary import RubberPath
 from core.model import Point
-
-CLICK_PIXELS = 4.0
 
 
 def rectangle(a: Point, b: Point) -> tuple[Point, ...]:
@@ -65,9 +61,9 @@ class RectangleTool(Tool):
     def release(self, event: PlanEvent) -> None:
         if self._first is None or self._press_pos is None:
             return
-        d = event.view_pos - self._press_pos
+        moved = dragged(self._press_pos, event)
         self._press_pos = None
-        if math.hypot(d.x(), d.y()) > CLICK_PIXELS:
+        if moved:
             self._finish(event.point)
 
     def _finish(self, corner: Point) -> None:
