@@ -5,11 +5,11 @@ from __future__ import annotations
 from dataclasses import replace
 
 import pytest
-from PySide6.QtCore import QRectF, Qt
+from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtTest import QTest
 
 from core.model import BracedFrame, ElementKind, Project
-from tests.test_gui_support import balanced_box, click, drag, frame, make_window, one_storey, settle
+from tests.helpers import balanced_box, click, drag, frame, make_window, one_storey, settle, view_point
 
 
 @pytest.fixture
@@ -177,7 +177,7 @@ def test_wheel_zoom_keeps_the_point_under_the_cursor(qtbot, tmp_path, steps):
     from PySide6.QtGui import QWheelEvent
     from PySide6.QtWidgets import QApplication
 
-    from tests.test_gui_support import balanced_box, make_window, view_point
+    from tests.helpers import balanced_box, make_window, view_point
 
     window = make_window(qtbot, tmp_path, balanced_box())
     view = window.plan_view
@@ -193,3 +193,10 @@ def test_wheel_zoom_keeps_the_point_under_the_cursor(qtbot, tmp_path, steps):
     after = view.to_plan(QPointF(pos))
     assert abs(after[0] - before[0]) <= 1.01 * max(view.pixel, pixel_before)
     assert abs(after[1] - before[1]) <= 1.01 * max(view.pixel, pixel_before)
+
+
+def test_plan_points_map_to_the_cursor_position(qtbot, tmp_path):
+    window = make_window(qtbot, tmp_path, balanced_box())
+    pos = view_point(window, 12.0, 5.0)
+    x, y = window.plan_view.to_plan(QPointF(pos))
+    assert abs(x - 12.0) < 2 * window.plan_view.pixel and abs(y - 5.0) < 2 * window.plan_view.pixel

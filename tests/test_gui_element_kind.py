@@ -21,7 +21,7 @@ from app.sheet.render import render_sheet
 from app.units import STIFFNESS
 from core.model import Element, Level, Project
 from core.model.fileio import load_project
-from tests.test_gui_support import drag, make_window, settle
+from tests.helpers import drag, make_window, settle
 from tests.throwaway_kind import STRUT_KIND, StrutLine, strut_kind_registered
 
 STRUT_COLOUR = QColor(200, 0, 200)

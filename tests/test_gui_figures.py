@@ -14,7 +14,7 @@ from core.analysis import analyse
 from core.lateral.records import Check, Status, Verdict
 from core.model.fileio import load_project
 from core.model.settings import RuleSet
-from tests.test_gui_support import make_window
+from tests.helpers import make_window
 
 
 def _verdict(name: str, value: float, limit: float, status: Status = Status.FAIL) -> Verdict:

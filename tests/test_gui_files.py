@@ -11,7 +11,7 @@ from app.main_window import MainWindow
 from app.resources import sample_path
 from core.model import Project
 from core.model.fileio import load_project
-from tests.test_gui_support import balanced_box, drag, make_window, settle
+from tests.helpers import balanced_box, drag, make_window, settle
 
 
 @pytest.fixture

@@ -10,7 +10,7 @@ from PySide6.QtTest import QTest
 
 from app.commands import add_level_on_top, delete_level, duplicate_level, insert_level_below
 from core.model import Element, Level, Project, Spring
-from tests.test_gui_support import RECTANGLE_36_18, frame, make_window, settle
+from tests.helpers import RECTANGLE_36_18, frame, make_window, settle
 
 
 def three_storeys() -> Project:

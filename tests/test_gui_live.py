@@ -11,7 +11,7 @@ from app.resources import sample_path
 from core.analysis import analyse
 from core.errors import AnalysisError
 from core.model.fileio import load_project
-from tests.test_gui_support import drag, frame, make_window, one_storey, settle
+from tests.helpers import drag, frame, make_window, one_storey, settle
 
 
 @pytest.fixture

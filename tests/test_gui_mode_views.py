@@ -23,6 +23,7 @@ from app.mode_views.clock import STEP_FRACTION, ModeClock
 from app.mode_views.panel import ModeViewsPanel, rigidity_centres
 from app.resources import sample_path
 from core.report.mode_frames import LayerMotion, building_geometry, peak_scale
+from tests.helpers import drag, make_window, settle
 
 SAMPLES = ("office_5_storey_braced", "residential_8_storey_walls", "pavilion_1_storey")
 SCREENSHOTS = Path(__file__).parent / "screenshots"
@@ -143,13 +144,16 @@ def test_editing_the_plan_while_animating_keeps_it_running(qtbot, open_sample):
 
 def test_the_clock_stops_while_hidden_and_resumes(qtbot, open_sample):
     _, panel = open_sample("pavilion_1_storey")
+    (timer,) = panel.clock.findChildren(QTimer)
     panel.clock.play()
-    assert panel.clock.running
+    assert panel.clock.running and timer.isActive()
     panel.hide()
     assert not panel.clock.running and panel.clock.playing
-    frames = panel.plan.frames_drawn
-    qtbot.wait(100)
-    assert panel.plan.frames_drawn == frames
+    # The clock's one timer is what draws frames: stopped, nothing can tick however long we wait.
+    assert not timer.isActive()
+    frames, phase = panel.plan.frames_drawn, panel.clock.phase
+    QApplication.processEvents()
+    assert panel.plan.frames_drawn == frames and panel.clock.phase == phase
     panel.show()
     assert panel.clock.running
     qtbot.waitUntil(lambda: panel.plan.frames_drawn > frames, timeout=3000)
@@ -256,7 +260,6 @@ def test_through_the_main_window(qtbot, tmp_path):
     from PySide6.QtWidgets import QDockWidget
 
     from app.resources import sample_path as bundled
-    from tests.test_gui_support import drag, make_window, settle
 
     window = make_window(qtbot, tmp_path)
     window.files.open_sample(bundled("residential_8_storey_walls"), confirm=False)

@@ -10,7 +10,7 @@ from PySide6.QtCore import Qt
 from PySide6.QtTest import QTest
 
 from core.model import ShearWall
-from tests.test_gui_support import balanced_box, make_window, settle
+from tests.helpers import balanced_box, make_window, settle
 
 
 @pytest.fixture

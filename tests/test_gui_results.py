@@ -10,7 +10,7 @@ from app.panels.verdicts import worst
 from app.resources import sample_path
 from core.lateral.records import Check, Status, Verdict
 from core.model.fileio import load_project
-from tests.test_gui_support import make_window
+from tests.helpers import make_window
 
 
 @pytest.fixture

@@ -8,7 +8,7 @@ from PySide6.QtWidgets import QMessageBox
 
 from app import safety_net
 from core.model.fileio import load_project, save_project
-from tests.test_gui_support import make_window
+from tests.helpers import make_window
 
 
 def test_an_unexpected_error_saves_the_work_and_keeps_the_window(qtbot, tmp_path, monkeypatch):

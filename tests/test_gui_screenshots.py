@@ -9,7 +9,7 @@ from pathlib import Path
 import pytest
 
 from app.resources import sample_projects
-from tests.test_gui_support import make_window, settle
+from tests.helpers import make_window, settle
 
 SCREENSHOTS = Path(__file__).parent / "screenshots"
 

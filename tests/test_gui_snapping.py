@@ -5,7 +5,7 @@ from __future__ import annotations
 import pytest
 
 from app.canvas.snapping import SnapKind, constrain_orthogonal, grid_crossing, plan_targets, snap_point
-from tests.test_gui_support import frame, one_storey
+from tests.helpers import frame, one_storey
 
 
 @pytest.fixture

@@ -5,7 +5,7 @@ from __future__ import annotations
 from PySide6.QtCore import Qt
 from PySide6.QtTest import QTest
 
-from tests.test_gui_support import balanced_box, drag, make_window, settle
+from tests.helpers import balanced_box, drag, make_window, settle
 
 
 def test_undo_restores_exactly_and_redo_reapplies(qtbot, tmp_path):

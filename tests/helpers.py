@@ -1,6 +1,6 @@
-"""Helpers for the editor tests: a main window on a throw-away settings file, mouse gestures in
-plan coordinates (metres), and small projects built in code. The checks themselves live in the
-other ``test_gui_*`` modules; the one test here guards the helpers' coordinate mapping."""
+"""Helpers shared by the editor tests: a main window on a throw-away settings file, mouse gestures
+in plan coordinates (metres), and small projects built in code. Test modules import from here,
+never from one another; ``test_gui_drawing`` checks the helpers' coordinate mapping."""
 
 from __future__ import annotations
 
@@ -99,10 +99,3 @@ def balanced_box() -> Project:
             frame("B4", (15.0, 18.0), (21.0, 18.0)),
         )
     )
-
-
-def test_plan_points_map_to_the_cursor_position(qtbot, tmp_path):
-    window = make_window(qtbot, tmp_path, balanced_box())
-    pos = view_point(window, 12.0, 5.0)
-    x, y = window.plan_view.to_plan(QPointF(pos))
-    assert abs(x - 12.0) < 2 * window.plan_view.pixel and abs(y - 5.0) < 2 * window.plan_view.pixel
