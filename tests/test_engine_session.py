@@ -70,6 +70,15 @@ def clamp(point: tuple[float, float]) -> tuple[float, float]:
     return (min(max(point[0], 0.2), WIDTH - 0.2), min(max(point[1], 0.2), DEPTH - 0.2))
 
 
+def moved_by(element: Element, dx: float, dy: float) -> Element:
+    """``element`` moved by (dx, dy), each end kept inside the plan."""
+    return dataclasses.replace(
+        element,
+        start=clamp((element.start[0] + dx, element.start[1] + dy)),
+        end=clamp((element.end[0] + dx, element.end[1] + dy)),
+    )
+
+
 @st.composite
 def edit(draw: st.DrawFn, project: Project) -> Project:
     kind = draw(st.sampled_from(["move", "stretch", "property", "add", "delete", "height"]))
@@ -87,15 +96,7 @@ def edit(draw: st.DrawFn, project: Project) -> Project:
         return dataclasses.replace(project, elements=(*project.elements, new))
     element = project.elements[index]
     if kind == "move":
-        return replace_element(
-            project,
-            index,
-            dataclasses.replace(
-                element,
-                start=clamp((element.start[0] + dx, element.start[1] + dy)),
-                end=clamp((element.end[0] + dx, element.end[1] + dy)),
-            ),
-        )
+        return replace_element(project, index, moved_by(element, dx, dy))
     if kind == "stretch":
         return replace_element(
             project, index, dataclasses.replace(element, end=clamp((element.end[0] + dx, element.end[1] + dy)))
@@ -137,15 +138,7 @@ def test_many_moves_stay_exact_across_rebuilds() -> None:
         index = step % len(project.elements)
         element = project.elements[index]
         dx, dy = rng.uniform(-0.5, 0.5, 2)
-        project = replace_element(
-            project,
-            index,
-            dataclasses.replace(
-                element,
-                start=clamp((element.start[0] + dx, element.start[1] + dy)),
-                end=clamp((element.end[0] + dx, element.end[1] + dy)),
-            ),
-        )
+        project = replace_element(project, index, moved_by(element, float(dx), float(dy)))
         warm = outcome(session, project)
     assert_same(project, warm, outcome(AnalysisSession(), project))
 

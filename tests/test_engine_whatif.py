@@ -12,7 +12,7 @@ from benchmarks.buildings import generated_building
 from core.engine import AnalysisSession
 from core.engine.whatif import element_positions
 from core.errors import AnalysisError
-from core.model import LoadMethod, Project, RuleSet
+from core.model import LoadMethod, Project, RuleSet, SystemType
 
 TOLERANCE = 1e-9
 
@@ -34,14 +34,21 @@ def close(a: float, b: float) -> bool:
 
 
 @pytest.mark.parametrize(
-    "method", [LoadMethod.EN1998, LoadMethod.ASCE7], ids=lambda m: m.value
+    "method, system",
+    [
+        (LoadMethod.EN1998, SystemType.OTHER),
+        (LoadMethod.ASCE7, SystemType.OTHER),  # the period is capped at C_u·T_a: one pattern
+        (LoadMethod.ASCE7, SystemType.STEEL_MOMENT),  # k of §12.8.3 follows each position's period
+    ],
+    ids=["en1998", "asce7-capped", "asce7-k-varies"],
 )
 @pytest.mark.parametrize("size", [(3, 12), (5, 20)])
-def test_positions_equal_full_analyses(method: LoadMethod, size: tuple[int, int]) -> None:
+def test_positions_equal_full_analyses(method: LoadMethod, system: SystemType, size: tuple[int, int]) -> None:
     project = generated_building(*size, seed=4)
     rule_set = RuleSet.EN1998 if method is LoadMethod.EN1998 else RuleSet.ASCE7
     project = dataclasses.replace(
-        project, settings=dataclasses.replace(project.settings, load_method=method, rule_set=rule_set)
+        project,
+        settings=dataclasses.replace(project.settings, load_method=method, rule_set=rule_set, system_type=system),
     )
     rng = np.random.default_rng(11)
     index = 1

@@ -7,8 +7,18 @@ scene for ``pixel`` (metres per device pixel) to size their bounding box and pic
 
 from __future__ import annotations
 
+from functools import lru_cache
+
 from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
-from PySide6.QtGui import QBrush, QColor, QPainter, QPainterPath, QPainterPathStroker, QPolygonF
+from PySide6.QtGui import (
+    QBrush,
+    QColor,
+    QFontMetricsF,
+    QPainter,
+    QPainterPath,
+    QPainterPathStroker,
+    QPolygonF,
+)
 from PySide6.QtWidgets import QGraphicsItem, QGraphicsPathItem, QStyleOptionGraphicsItem, QWidget
 
 from app.canvas import style
@@ -98,6 +108,9 @@ class ElementItem(QGraphicsItem):
         self.selected = False
         self.culprit = False
         self.setAcceptedMouseButtons(Qt.MouseButton.NoButton)  # tools pick by position
+        # Painted once per look and zoom into a pixmap the view reuses: a drag that moves one
+        # element repaints that element, and the other items are copied, not drawn again.
+        self.setCacheMode(QGraphicsItem.CacheMode.DeviceCoordinateCache)
 
     def set_element(self, element: Element) -> None:
         if element != self.element:
@@ -114,8 +127,11 @@ class ElementItem(QGraphicsItem):
         self.prepareGeometryChange()
 
     def _margin(self) -> float:
+        """Room around the line, m: the symbol and the id label beside it (the item's cached
+        picture holds only what lies inside the bounding rectangle)."""
         thickness = app_kind(self.element.kind).thickness(self.element.properties)
-        return max(24.0 * _pixel(self), thickness)
+        label = 20.0 + 0.85 * (_label_width(self.element.id) + 6.0)  # px: see _draw_label
+        return max(24.0, label) * _pixel(self) + thickness
 
     def boundingRect(self) -> QRectF:
         (x1, y1), (x2, y2) = self.element.start, self.element.end
@@ -175,6 +191,12 @@ def draw_element_symbol(
     w = spec.draw_canvas(painter, a, u, n, length, SYMBOL_PIXELS, scale, element.properties, colour)
     if label:
         _draw_label(painter, element.id, (a + b) / 2, n, w + 9.0, colour)
+
+
+@lru_cache(maxsize=4096)
+def _label_width(text: str) -> float:
+    """Width of an element's id label, px."""
+    return QFontMetricsF(style.LABEL_FONT).horizontalAdvance(text)
 
 
 def _draw_label(painter: QPainter, text: str, centre: QPointF, n: QPointF, offset: float, colour: QColor) -> None:

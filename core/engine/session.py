@@ -199,16 +199,16 @@ class AnalysisSession:
         if rebuild:
             K = np.zeros((size, size))
             for entry in kept:
-                dofs = _dofs(entry.floors)
+                dofs = dof_slice(entry.floors)
                 K[dofs, dofs] += entry.block
             self._updates = 0
         else:
             K = self._K
             for old in removed + [self._kept[e.element.id] for e in changed if e.element.id in self._kept]:
-                dofs = _dofs(old.floors)
+                dofs = dof_slice(old.floors)
                 K[dofs, dofs] -= old.block
             for entry in changed:
-                dofs = _dofs(entry.floors)
+                dofs = dof_slice(entry.floors)
                 K[dofs, dofs] += entry.block
             self._updates += len(changed) + len(removed)
         self._K = K
@@ -251,6 +251,7 @@ class AnalysisSession:
         if rebuild:
             total = np.zeros((len(floors), 3, 3))
             for entry in kept:
+                assert entry.rows is not None  # every entry was brought to this stamp above
                 total[_storey_slice(entry.element)] += entry.rows
             self._storey_updates = 0
         else:
@@ -258,6 +259,7 @@ class AnalysisSession:
                 if old.rows is not None:
                     total[_storey_slice(old.element)] -= old.rows
             for entry in fresh:
+                assert entry.rows is not None
                 total[_storey_slice(entry.element)] += entry.rows
             self._storey_updates += len(fresh) + len(self._replaced)
         self._storeys, self._replaced = total, []
@@ -297,5 +299,6 @@ def _storey_slice(element: Element) -> slice:
     return slice(element.bottom, element.top)
 
 
-def _dofs(floors: range) -> slice:
+def dof_slice(floors: range) -> slice:
+    """The DOFs in K of contiguous floors."""
     return slice(DOF_PER_FLOOR * floors.start, DOF_PER_FLOOR * floors.stop)

@@ -34,9 +34,14 @@ import numpy.typing as npt
 import shapely
 
 from core.arrays import FloatArray, frozen_array
-from core.engine.session import AnalysisSession, KeptElement, one_blas_thread
+from core.engine.session import AnalysisSession, KeptElement, dof_slice, one_blas_thread
 from core.lateral.cases import DIRECTIONS, LoadCase
-from core.lateral.centres import element_pattern, element_storey_stiffness, storey_property_arrays
+from core.lateral.centres import (
+    element_pattern,
+    element_storey_rows,
+    element_storey_stiffness,
+    storey_property_arrays,
+)
 from core.lateral.loads import (
     accidental_eccentricities,
     case_load_vector,
@@ -100,10 +105,10 @@ def _figures(
     rest = np.zeros((size, size))
     for j, entry in enumerate(kept):
         if j != index:
-            rest[_dofs(entry.floors), _dofs(entry.floors)] += entry.block
+            rest[dof_slice(entry.floors), dof_slice(entry.floors)] += entry.block
     matrix = kept[index].matrix
     spanned = element_floors(element)
-    dofs = _dofs(spanned)
+    dofs = dof_slice(spanned)
 
     c, s = element.direction
     half = np.array([element.end[0] - element.start[0], element.end[1] - element.start[1]]) / 2
@@ -141,7 +146,7 @@ def _figures(
         rotation[chunk] = (phi[:, 2::3] ** 2 * mass[None, 2::3, None]).sum(axis=1)
         ratios = np.einsum("bim,i,ri->bmr", phi, mass, iota) ** 2 / totals
         dominant = ratios[..., :2].argmax(axis=1)  # (B, 2): the mode with the largest mass in x and in y
-        for b in np.flatnonzero(ok):
+        for b in np.flatnonzero(ok).tolist():
             g = first + b
             loads = [static_load(d, settings, floors, periods[g, dominant[b, a]]) for a, d in enumerate(DIRECTIONS)]
             patterns = np.stack(
@@ -153,14 +158,17 @@ def _figures(
             ecc_ratio[g] = _eccentricity_ratios(storeys)
 
     stands = stiff[where] & _inside(project, element, starts, starts + 2 * half)
-    figures = [array[where] for array in (periods, rotation, torsion, ecc_ratio)]
-    for array in figures:
+    periods, rotation, torsion, ecc_ratio = (array[where] for array in (periods, rotation, torsion, ecc_ratio))
+    for array in (periods, rotation, torsion, ecc_ratio):
         array[~stands] = np.nan
-    return PositionFigures(frozen_array(midpoints), *(frozen_array(a) for a in figures), stands)
-
-
-def _dofs(floors: range) -> slice:
-    return slice(DOF_PER_FLOOR * floors.start, DOF_PER_FLOOR * floors.stop)
+    return PositionFigures(
+        midpoints=frozen_array(midpoints),
+        periods=frozen_array(periods),
+        rotation_share=frozen_array(rotation),
+        torsion_ratio=frozen_array(torsion),
+        eccentricity_ratio=frozen_array(ecc_ratio),
+        stands=stands,
+    )
 
 
 def _moved(element: Element, start: FloatArray) -> Element:
@@ -218,18 +226,14 @@ def _element_rows(
 ) -> FloatArray:
     """(N, 3, 3) one element's share of the storey matrices: k_e,j·aᵀa on the storeys it spans."""
     pattern = element_pattern(element, patterns)
+    k = None
     if entry is not None and entry.pattern is not None and np.array_equal(entry.pattern, pattern):
         k = entry.storey_stiffness
-    else:
+    if k is None:
         k = element_storey_stiffness(matrix, pattern)
     out = np.zeros((len(centres), 3, 3))
     spanned = slice(element.bottom, element.top)
-    c, s = element.direction
-    x, y = element.start
-    a = np.empty((element.storey_count, 3))
-    a[:, 0], a[:, 1] = c, s
-    a[:, 2] = s * (x - centres[spanned, 0]) - c * (y - centres[spanned, 1])
-    out[spanned] = k[:, None, None] * a[:, :, None] * a[:, None, :]
+    out[spanned] = element_storey_rows(element, k, centres[spanned])
     return out
 
 
