@@ -31,13 +31,16 @@ class Snap:
     kind: SnapKind
     label: str = ""
     """What was caught, for the status bar: ``end of B2``."""
+    along: Point | None = None
+    """Unit direction of the line caught (a midpoint or a point on a line), for the marker."""
 
 
 @dataclass
 class SnapTargets:
     """Feature points and lines one can snap to on one level."""
 
-    points: list[tuple[Point, SnapKind, str]] = field(default_factory=list)
+    points: list[tuple[Point, SnapKind, str, Point | None]] = field(default_factory=list)
+    """Point, kind, label and the direction of the line it lies on (midpoints only)."""
     lines: list[tuple[Point, Point, SnapKind, str]] = field(default_factory=list)
 
 
@@ -59,19 +62,26 @@ def plan_targets(
             floor = project.levels[number - 1]
             name = "outline" if number == level else f"outline of {floor.name}"
             for ring, what in [(floor.outline, name)] + [(o, "opening") for o in floor.openings]:
-                targets.points.extend((p, SnapKind.VERTEX, f"corner of {what}") for p in ring)
+                targets.points.extend((p, SnapKind.VERTEX, f"corner of {what}", None) for p in ring)
                 targets.lines.extend((a, b, SnapKind.EDGE, f"edge of {what}") for a, b in _ring_edges(ring))
     for element in project.elements:
         if element.id in exclude:
             continue
-        targets.points.append((element.start, SnapKind.END, f"end of {element.id}"))
-        targets.points.append((element.end, SnapKind.END, f"end of {element.id}"))
-        targets.points.append((element.midpoint, SnapKind.MIDPOINT, f"middle of {element.id}"))
+        targets.points.append((element.start, SnapKind.END, f"end of {element.id}", None))
+        targets.points.append((element.end, SnapKind.END, f"end of {element.id}", None))
+        targets.points.append((element.midpoint, SnapKind.MIDPOINT, f"middle of {element.id}",
+                               direction(element.start, element.end)))
         targets.lines.append((element.start, element.end, SnapKind.EDGE, f"line of {element.id}"))
     for a, b in underlay:
-        targets.points.extend([(a, SnapKind.END, "underlay end"), (b, SnapKind.END, "underlay end")])
+        targets.points.extend([(a, SnapKind.END, "underlay end", None), (b, SnapKind.END, "underlay end", None)])
         targets.lines.append((a, b, SnapKind.UNDERLAY, "underlay line"))
     return targets
+
+
+def direction(a: Point, b: Point) -> Point | None:
+    """Unit vector from ``a`` to ``b`` (None for a point)."""
+    length = math.dist(a, b)
+    return ((b[0] - a[0]) / length, (b[1] - a[1]) / length) if length > 0.0 else None
 
 
 def nearest_on_segment(p: Point, a: Point, b: Point) -> Point:
@@ -97,10 +107,10 @@ def snap_point(
     else the nearest grid point (when ``grid_spacing`` is given), else ``raw`` itself."""
     if targets is not None:
         best: tuple[float, Snap] | None = None
-        for point, kind, label in targets.points:
+        for point, kind, label, along in targets.points:
             d = math.dist(raw, point)
             if d <= tolerance and (best is None or d < best[0]):
-                best = (d, Snap(point, kind, label))
+                best = (d, Snap(point, kind, label, along))
         if best is not None:
             return best[1]
         for a, b, kind, label in targets.lines:
@@ -109,7 +119,7 @@ def snap_point(
             if d <= tolerance and (best is None or d < best[0]):
                 if grid_spacing:
                     q = grid_crossing(q, a, b, grid_spacing, tolerance)
-                best = (d, Snap(q, kind, label))
+                best = (d, Snap(q, kind, label, direction(a, b)))
         if best is not None:
             return best[1]
     if grid_spacing:

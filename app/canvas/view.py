@@ -10,7 +10,7 @@ from __future__ import annotations
 import math
 
 from PySide6.QtCore import QLineF, QPointF, QRectF, Qt, Signal
-from PySide6.QtGui import QColor, QFont, QKeyEvent, QMouseEvent, QPainter, QPolygonF, QTransform, QWheelEvent
+from PySide6.QtGui import QColor, QFont, QKeyEvent, QMouseEvent, QPainter, QTransform, QWheelEvent
 from PySide6.QtWidgets import QFrame, QGraphicsView, QWidget
 
 from app.canvas import style
@@ -274,11 +274,20 @@ class PlanView(QGraphicsView):
         painter.resetTransform()
         painter.setRenderHint(QPainter.RenderHint.Antialiasing)
         if self._snap is not None:
-            draw_snap_marker(painter, self.to_view(self._snap.point), self._snap.kind)
+            draw_snap_marker(painter, self.to_view(self._snap.point), self._snap.kind, self._snap.along)
         text = self.diagnostic_text()
         if text:
             self._draw_banner(painter, text)
         painter.restore()
+
+    @property
+    def shown_snap(self) -> Snap | None:
+        """The snap whose marker is drawn (None when the cursor catches nothing)."""
+        return self._snap
+
+    def snap_tag(self) -> str:
+        """The tag drawn by the cursor ("" when no marker is shown)."""
+        return SNAP_TAGS.get(self._snap.kind, "") if self._snap is not None else ""
 
     def diagnostic_text(self) -> str | None:
         """The explanation shown on the canvas when the layout cannot be analysed, else None."""
@@ -304,19 +313,45 @@ class PlanView(QGraphicsView):
         painter.drawText(frame.adjusted(10, 8, -10, -8), Qt.TextFlag.TextWordWrap, text)
 
 
-def draw_snap_marker(painter: QPainter, c: QPointF, kind: SnapKind) -> None:
-    """A marker whose shape says what was caught: square a corner or end, triangle a midpoint,
-    hourglass a point on a line, small cross a grid point."""
-    painter.setBrush(Qt.BrushStyle.NoBrush)
-    painter.setPen(style.pen(style.SNAP, 1.8))
-    r = 6.0
+SNAP_TAGS: dict[SnapKind, str] = {
+    SnapKind.VERTEX: "corner",
+    SnapKind.END: "end",
+    SnapKind.MIDPOINT: "middle",
+    SnapKind.EDGE: "on line",
+    SnapKind.UNDERLAY: "on drawing",
+    SnapKind.GRID: "grid",
+}
+"""The word by the cursor that names what the cursor caught."""
+TAG_FONT = QFont("DejaVu Sans", 8)
+
+
+def draw_snap_marker(painter: QPainter, c: QPointF, kind: SnapKind, along: Point | None = None) -> None:
+    """Poise's snap marker at ``c`` (device pixels) and a tag naming the snap beside it: a filled
+    dot for a corner or an end, a short tick across the line for a middle, a small ring on the
+    line for a point on a line or drawing, a small plus for a grid point."""
+    painter.save()
     if kind in (SnapKind.VERTEX, SnapKind.END):
-        painter.drawRect(QRectF(c.x() - r, c.y() - r, 2 * r, 2 * r))
+        painter.setPen(style.pen(QColor("white"), 1.5))
+        painter.setBrush(style.SNAP)
+        painter.drawEllipse(c, 4.5, 4.5)
     elif kind is SnapKind.MIDPOINT:
-        painter.drawPolygon(QPolygonF([c + QPointF(0, -r), c + QPointF(r, r * 0.8), c + QPointF(-r, r * 0.8)]))
+        dx, dy = along if along is not None else (1.0, 0.0)
+        across = QPointF(-dy, -dx) * 8.0  # perpendicular on screen (the view flips y)
+        painter.setPen(style.pen(style.SNAP, 3.0))
+        painter.drawLine(QLineF(c - across, c + across))
     elif kind in (SnapKind.EDGE, SnapKind.UNDERLAY):
-        painter.drawPolygon(QPolygonF([c + QPointF(-r, -r), c + QPointF(r, -r), c + QPointF(-r, r), c + QPointF(r, r)]))
+        painter.setBrush(Qt.BrushStyle.NoBrush)
+        painter.setPen(style.pen(style.SNAP, 2.0))
+        painter.drawEllipse(c, 5.5, 5.5)
     else:
         r = 4.0
+        painter.setPen(style.pen(style.SNAP, 1.5))
         painter.drawLine(QLineF(c.x() - r, c.y(), c.x() + r, c.y()))
         painter.drawLine(QLineF(c.x(), c.y() - r, c.x(), c.y() + r))
+    tag = SNAP_TAGS.get(kind)
+    if tag:
+        painter.setFont(TAG_FONT)
+        width = painter.fontMetrics().horizontalAdvance(tag) + 8
+        box = QRectF(c.x() + 11, c.y() - 22, width, painter.fontMetrics().height() + 2)
+        style.draw_label(painter, box, tag, style.SNAP, 225, 130)
+    painter.restore()
