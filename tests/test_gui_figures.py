@@ -7,13 +7,13 @@ import dataclasses
 
 import pytest
 
-from app.figures import verdict_figures
 from app.panels.verdicts import storey_state
 from app.resources import sample_path
 from core.analysis import analyse
 from core.lateral.records import Check, Status, Verdict
 from core.model.fileio import load_project
 from core.model.settings import RuleSet
+from core.report.figures import verdict_figures
 from tests.helpers import make_window
 
 
@@ -65,3 +65,22 @@ def test_every_drift_figure_on_screen_says_which_drift(qtbot, tmp_path):
     board = window.readouts.text()
     drift_lines = [line for line in board.splitlines() if "drift" in line and " vs " in line]
     assert drift_lines and all("%" in line for line in drift_lines)
+
+
+def test_the_rule_set_setting_has_one_name_everywhere(qtbot, tmp_path):
+    from app.panels.properties import project_rows
+    from app.sheet.content import sheet_content
+    from core.report.figures import CODE_LIMITS
+    from core.report.summary import format_summary
+
+    project = load_project(sample_path("residential_8_storey_walls"))
+    results = analyse(project)
+    labels = [row.label for row in project_rows(project)]
+    assert CODE_LIMITS in labels and not any("judge" in label.lower() for label in labels)
+    window = make_window(qtbot, tmp_path, project)
+    board = window.readouts.text()
+    assert f"{CODE_LIMITS} EN 1998-1" in board and "EN1998 limits" not in board
+    content = sheet_content(project, results)
+    assert f"{CODE_LIMITS}: EN 1998-1." in " ".join(content.assumptions)
+    text = format_summary(project, results)
+    assert "code limits EN 1998-1" in text and "rule set" not in text

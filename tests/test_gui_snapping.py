@@ -93,7 +93,7 @@ def test_screenshot_shows_the_snap_markers(qtbot, tmp_path):
     from PySide6.QtTest import QTest
 
     from app.canvas.view import SNAP_TAGS
-    from tests.test_gui_support import make_window, view_point
+    from tests.helpers import make_window, view_point
 
     window = make_window(qtbot, tmp_path, one_storey((frame("B1", (6.0, 3.0), (6.0, 13.0)),)))
     view = window.plan_view

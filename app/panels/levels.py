@@ -28,10 +28,10 @@ from PySide6.QtWidgets import QHBoxLayout, QLabel, QMenu, QSizePolicy, QToolButt
 from app.canvas import style
 from app.commands import replace_level
 from app.document import ProjectDocument
-from app.figures import drift_text
 from app.panels.fields import FieldForm, Row
 from app.panels.verdicts import colour_of, storey_state
 from app.units import AREA_LOAD, LENGTH
+from core.report.figures import drift_text
 from core.solve.assembly import floor_masses
 
 GROUND_PIXELS = 22

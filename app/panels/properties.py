@@ -34,6 +34,7 @@ from core.model import (
     SystemType,
     default_properties,
 )
+from core.report.figures import CODE_LIMITS
 
 
 def _with_kind(element: Element, kind: Kind) -> Element:
@@ -162,11 +163,11 @@ def project_rows(project: Project) -> list[Row]:
         Row("Engineer", "engineer", "text"),
         Row("Revision", "revision", "text"),
         Row(
-            "Judge by",
+            CODE_LIMITS,
             "settings.rule_set",
             "choice",
-            choices=[(f"{r.title} limits", r.name) for r in registered_rule_sets()],
-            tip="Which code's limits give pass / warn / fail; both sets of figures are computed.",
+            choices=[(r.title, r.name) for r in registered_rule_sets()],
+            tip="Whose limits give pass / warn / fail; the figures themselves are computed either way.",
         ),
         Row(
             "Static load",

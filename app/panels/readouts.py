@@ -17,10 +17,10 @@ from PySide6.QtWidgets import QLabel, QScrollArea, QToolTip, QVBoxLayout, QWidge
 
 from app.canvas import style
 from app.document import ProjectDocument
-from app.figures import verdict_figures
 from app.panels.results import CAUTION, fmt_number, mode_type
 from app.panels.verdicts import STATUS_WORDS, check_summaries, colour_of
 from core.lateral.records import Check
+from core.report.figures import CODE_LIMITS, verdict_figures
 
 GREY = QColor("#6d695f")
 HEADING = QFont("DejaVu Sans", 9, QFont.Weight.Bold)
@@ -263,7 +263,7 @@ class ReadoutsPanel(QWidget):
         rows.append(
             Row(
                 "heading",
-                ("Checks", f"{lateral.rule_set_title} limits · worst storey · overall {STATUS_WORDS[overall]}"),
+                ("Checks", f"{CODE_LIMITS} {lateral.rule_set_title} · worst storey · overall {STATUS_WORDS[overall]}"),
             )
         )
         for summary in check_summaries(lateral):

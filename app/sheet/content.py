@@ -11,7 +11,6 @@ import datetime as _dt
 import math
 from dataclasses import dataclass
 
-from app.figures import verdict_figures
 from app.kinds import app_kinds
 from core.lateral.cases import DIRECTIONS
 from core.lateral.records import STATUS_ORDER, Check, LateralResults, Status, Verdict
@@ -20,6 +19,7 @@ from core.model import (
     Project,
     Settings,
 )
+from core.report.figures import CODE_LIMITS, verdict_figures
 from core.report.summary import CAUTION
 from core.results import Mode, Results
 
@@ -288,7 +288,7 @@ def assumptions(project: Project, results: Results) -> tuple[str, ...]:
     lines.append(
         f"Drift: design drift d_r = {lateral.drift_amplification:g} × elastic drift; ν·d_r with "
         f"ν = {lateral.drift_reduction:g} is held to the limit {lateral.drift_basis}. "
-        f"Code limits: {lateral.rule_set_title}."
+        f"{CODE_LIMITS}: {lateral.rule_set_title}."
     )
     lines.extend(lateral.notes)
     return tuple(lines)

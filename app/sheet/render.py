@@ -40,6 +40,7 @@ from app.sheet.painting import (
 from app.sheet.plan_drawing import draw_legend, draw_plan
 from core.lateral.records import STATUS_ORDER, Status
 from core.model import Project
+from core.report.figures import CODE_LIMITS
 from core.results import Results
 
 MIDDLE = Qt.TextElideMode.ElideMiddle
@@ -254,7 +255,7 @@ class SheetPainter:
         paper = self.paper
         title = "Checks per storey"
         if not content.columns:
-            message = [f"No figure is judged per storey under rule set {content.rule_set}.",
+            message = [f"No figure is judged per storey under the code limits of {content.rule_set}.",
                        *self.checks_notes(compact=False)]
 
             def measure_empty(width: float) -> float:
@@ -265,7 +266,7 @@ class SheetPainter:
                 self.lines(QRectF(rect.left(), top, rect.width(), rect.height()), message, 6.2)
 
             return Block(measure_empty, draw_empty)
-        note = f"rule set {content.rule_set}; x, y: direction of analysis; worst case per storey, top first"
+        note = f"code limits {content.rule_set}; x, y: direction of analysis; worst case per storey, top first"
 
         def measure(width: float) -> float:
             table, compact = self.checks_table(width)
@@ -358,7 +359,7 @@ class SheetPainter:
             ("DATE", title.date or "–"),
             ("REVISION", title.revision or "–"),
             ("LEVEL DRAWN", f"{self.content.level} · {self.results.floors[self.content.level - 1].name}"),
-            ("RULE SET", self.content.rule_set or "–"),
+            (CODE_LIMITS.upper(), self.content.rule_set or "–"),
         ]
         cell_w, cell_h = fields_w / 3, rect.height() / 2
         value_font = paper.font(7.6, scaled=False)

@@ -42,6 +42,7 @@ import numpy as np
 
 from core.lateral.records import LateralResults, Status
 from core.model import Project
+from core.report.figures import CODE_LIMITS, verdict_figures
 from core.results import Results
 
 CAUTION = (
@@ -282,7 +283,7 @@ def format_lateral(lateral: LateralResults) -> list[str]:
     lines.append("")
     failing = [v for v in lateral.verdicts if v.status is not Status.PASS]
     lines.append(
-        f"Checks by {lateral.rule_set_title} limits: {lateral.status.value}; "
+        f"Checks against {CODE_LIMITS.lower()} {lateral.rule_set_title}: {lateral.status.value}; "
         f"{len(lateral.verdicts) - len(failing)} of {len(lateral.verdicts)} pass; "
         f"drift limit {lateral.drift_basis}"
     )
@@ -294,7 +295,6 @@ def format_lateral(lateral: LateralResults) -> list[str]:
             if part
         )
         label = f"{v.name} ({where})" if where else v.name
-        lines.append(
-            f"  {v.status.value.upper():<5}{label}: {v.value:.4g} vs {v.limit:g} — {v.clause}"
-        )
+        value, limit = verdict_figures(v)
+        lines.append(f"  {v.status.value.upper():<5}{label}: {value} vs {limit} — {v.clause}")
     return lines

@@ -43,3 +43,7 @@ def _general(value: float, digits: int) -> str:
     if math.isinf(value):
         return "∞" if value > 0 else "−∞"
     return f"{value:.{digits}g}"
+
+
+CODE_LIMITS = "Code limits"
+"""The one name of the setting that chooses whose limits judge the figures."""
