@@ -30,12 +30,13 @@ from app.mode_views.panel import install as install_mode_views
 from app.panels.levels import LevelsPanel
 from app.panels.properties import PropertiesPanel
 from app.panels.readouts import ReadoutsPanel
-from app.panels.results import CAUTION, TablesPanel
+from app.panels.results import TablesPanel
 from app.panels.status import StatusPanel
 from app.panels.tool_options import ToolOptions
 from app.resources import DEFAULT_SAMPLE, sample_path
 from app.tools.place import PlacementRange
 from app.view_actions import install as install_view_actions
+from core.report.summary import CAUTION
 
 MENU_TITLES = {
     "file": "&File",

@@ -84,3 +84,24 @@ def test_the_rule_set_setting_has_one_name_everywhere(qtbot, tmp_path):
     assert f"{CODE_LIMITS}: EN 1998-1." in " ".join(content.assumptions)
     text = format_summary(project, results)
     assert "code limits EN 1998-1" in text and "rule set" not in text
+
+
+def test_plain_trade_words_on_screen(qtbot, tmp_path, monkeypatch):
+    from app.canvas import overlays
+    from app.kinds import app_kind
+    from core.model import ElementKind
+
+    labels: list[str] = []
+    original = overlays._label
+    monkeypatch.setattr(overlays, "_label", lambda painter, at, u, text, colour: (labels.append(text),
+                                                                                original(painter, at, u, text, colour)))
+    window = make_window(qtbot, tmp_path, load_project(sample_path("office_5_storey_braced")))
+    window.plan_view.grab()
+    assert "CM" in labels and any(text.startswith("CR ") for text in labels)
+    assert app_kind(ElementKind.SPRING).label == "Storey spring"
+    from app.mode_views.panel import ModeViewsPanel
+
+    panel = window.findChild(ModeViewsPanel)
+    qtbot.waitUntil(lambda: bool(panel.plan.getPlotItem().titleLabel.text))
+    title = panel.plan.getPlotItem().titleLabel.text
+    assert "highlighted" in title and "bold" not in title

@@ -16,6 +16,7 @@ from PySide6.QtGui import QBrush, QColor, QPainter, QPolygonF
 from PySide6.QtWidgets import QGraphicsItem, QStyleOptionGraphicsItem, QWidget
 
 from app.canvas import style
+from app.canvas.centre_marks import draw_centre_mark
 from core.model import Point
 from core.results import Results
 
@@ -92,7 +93,7 @@ def draw_overlay(painter: QPainter, data: OverlayData, to_device) -> None:
         painter.setPen(style.pen(style.MASS_CENTRE, 1.0, Qt.PenStyle.DashLine))
         painter.setBrush(QBrush(style.ACCIDENTAL_BAND))
         painter.drawRect(band)
-    # Labels go on the far side of each symbol along the line M → R, so they never cover it.
+    # Labels go on the far side of each symbol along the line CM → CR, so they never cover it.
     u = QPointF(-0.7071, -0.7071)
     if data.rigidity_centre is not None:
         r = to_device(data.rigidity_centre)
@@ -100,32 +101,12 @@ def draw_overlay(painter: QPainter, data: OverlayData, to_device) -> None:
         if distance > 14:
             u = (r - m) / distance
             _arrow(painter, m, r)
-        _rigidity_symbol(painter, r)
+        draw_centre_mark(painter, "rigidity", r, 9.0, style.pen(style.RIGIDITY_CENTRE, 2.0))
         dx = data.rigidity_centre[0] - data.mass_centre[0]
         dy = data.rigidity_centre[1] - data.mass_centre[1]
-        _label(painter, r, u, f"R  e = {math.hypot(dx, dy):.2f} m", style.RIGIDITY_CENTRE)
-    _mass_symbol(painter, m)
-    _label(painter, m, -u, "M", style.MASS_CENTRE)
-
-
-def _mass_symbol(painter: QPainter, c: QPointF) -> None:
-    """A ring with a cross (⊕), the same mark as the mode views, the legend and the sheet."""
-    painter.setBrush(QColor(255, 255, 255, 230))
-    painter.setPen(style.pen(style.MASS_CENTRE, 2.0))
-    painter.drawEllipse(c, 8.0, 8.0)
-    painter.drawLine(QLineF(c.x() - 8.0, c.y(), c.x() + 8.0, c.y()))
-    painter.drawLine(QLineF(c.x(), c.y() - 8.0, c.x(), c.y() + 8.0))
-
-
-def _rigidity_symbol(painter: QPainter, c: QPointF) -> None:
-    d = 9.0
-    diamond = QPolygonF([c + QPointF(0, -d), c + QPointF(d, 0), c + QPointF(0, d), c + QPointF(-d, 0)])
-    painter.setBrush(QColor(255, 255, 255, 230))
-    painter.setPen(style.pen(style.RIGIDITY_CENTRE, 2.0))
-    painter.drawPolygon(diamond)
-    painter.setPen(Qt.PenStyle.NoPen)
-    painter.setBrush(style.RIGIDITY_CENTRE)
-    painter.drawRect(QRectF(c.x() - 2.5, c.y() - 2.5, 5.0, 5.0))
+        _label(painter, r, u, f"CR  e = {math.hypot(dx, dy):.2f} m", style.RIGIDITY_CENTRE)
+    draw_centre_mark(painter, "mass", m, 8.0, style.pen(style.MASS_CENTRE, 2.0))
+    _label(painter, m, -u, "CM", style.MASS_CENTRE)
 
 
 def _arrow(painter: QPainter, a: QPointF, b: QPointF) -> None:

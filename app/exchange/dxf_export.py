@@ -19,6 +19,7 @@ from ezdxf.enums import TextEntityAlignment
 from app.exchange.errors import ExchangeError
 from app.kinds import app_kind, app_kinds
 from core.model import Point, Project
+from core.report.mode_frames import mass_centre_symbol, rigidity_centre_symbol
 from core.results import Results
 
 APP_ID = "POISE"
@@ -42,6 +43,12 @@ TEXT_HEIGHT = 0.25
 """Label height, m (2.5 mm on a 1:100 print)."""
 SYMBOL_RADIUS = 0.3
 """Radius of the centre symbols, m."""
+
+
+def _segments(msp, points, layer: str) -> None:
+    """Rows 2i and 2i + 1 of ``points`` as one DXF line each."""
+    for a, b in zip(points[0::2], points[1::2], strict=True):
+        msp.add_line((float(a[0]), float(a[1])), (float(b[0]), float(b[1])), dxfattribs={"layer": layer})
 
 
 def layer_name(level: int, role: str) -> str:
@@ -112,23 +119,19 @@ def _text(msp, text: str, point: tuple[float, float], height: float, layer: str,
 
 def _centres(msp, results: Results, level: int, scale: float) -> None:
     """Mass centre (circle with a cross), rigidity centre (a square on its corner with a smaller
-    square inside: the marks of core.report.mode_frames) and the line between them."""
+    square inside): the marks of core.report.mode_frames that every view draws (the circle as a
+    true circle), and the line between them."""
     layer = layer_name(level, "CENTRES")
     labels = layer_name(level, "LABELS")
     r = SYMBOL_RADIUS * scale
     mx, my = (c * scale for c in results.floors[level - 1].centre)
-    msp.add_circle((mx, my), r, dxfattribs={"layer": layer})
-    msp.add_line((mx - r, my), (mx + r, my), dxfattribs={"layer": layer})
-    msp.add_line((mx, my - r), (mx, my + r), dxfattribs={"layer": layer})
+    msp.add_circle((mx, my), r, dxfattribs={"layer": layer})  # a true circle, which CAD snaps to
+    _segments(msp, mass_centre_symbol((mx, my), r)[-4:], layer)  # the mark's cross
     _text(msp, "CM", (mx + 1.2 * r, my + 1.2 * r), TEXT_HEIGHT * scale, labels, TextEntityAlignment.BOTTOM_LEFT)
     centre = results.lateral.storey(level).rigidity_centre
     if centre is None:
         return
     rx, ry = (c * scale for c in centre)
-    q = 0.4 * r
-    msp.add_lwpolyline([(rx + r, ry), (rx, ry + r), (rx - r, ry), (rx, ry - r)], close=True,
-                       dxfattribs={"layer": layer})
-    msp.add_lwpolyline([(rx + q, ry + q), (rx - q, ry + q), (rx - q, ry - q), (rx + q, ry - q)], close=True,
-                       dxfattribs={"layer": layer})
+    _segments(msp, rigidity_centre_symbol((rx, ry), r), layer)
     msp.add_line((mx, my), (rx, ry), dxfattribs={"layer": layer})
     _text(msp, "CR", (rx + 1.2 * r, ry - 1.2 * r), TEXT_HEIGHT * scale, labels, TextEntityAlignment.TOP_LEFT)

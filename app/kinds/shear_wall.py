@@ -54,7 +54,7 @@ def property_rows() -> list[Row]:
         material_row("Sets the material's typical wall (concrete 250 mm cracked, or a steel plate)."),
         Row("Thickness", "properties.thickness", "number", THICKNESS),
         Row("Modulus E", "properties.modulus", "number", MODULUS),
-        Row("Poisson ratio", "properties.poisson", "number", PLAIN),
+        Row("Poisson's ratio", "properties.poisson", "number", PLAIN),
         Row(
             "Stiffness factor",
             "properties.stiffness_factor",

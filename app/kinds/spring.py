@@ -1,4 +1,4 @@
-"""Spring lines in the app: a zigzag coil on the canvas, a dashed line with a coil on the sheet."""
+"""Storey springs in the app: a zigzag coil on the canvas, a dashed line with a coil on the sheet."""
 
 from __future__ import annotations
 
@@ -70,7 +70,7 @@ def stiffness_note(springs: Sequence[Spring]) -> str:
 
 SPEC = AppKindSpec(
     kind=ElementKind.SPRING,
-    label="Spring line",
+    label="Storey spring",
     colour=QColor("#7a3fa0"),
     shortcut="K",
     icon="spring",

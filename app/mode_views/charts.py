@@ -21,6 +21,7 @@ from app.mode_views.palette import (
     TEXT,
     colour_key,
 )
+from core.report.figures import MODE_KIND_SYMBOLS
 from core.report.mode_frames import height_profile
 from core.results import ModeKind, Results
 
@@ -31,7 +32,6 @@ TARGET_MASS_RATIO = 0.9
 HEADROOM = 1.08
 """Top of the mass chart over its tallest figure, so the 100 % lines stay clear of the frame."""
 COMPONENT_NAMES = ("x", "y", "θ")
-KIND_SYMBOLS = {ModeKind.X: "x", ModeKind.Y: "y", ModeKind.TORSION: "θ", ModeKind.MIXED: "mixed"}
 SHAPE_NAMES = ("u_x", "u_y", "θ·l_s")
 FLOOR_TICK = 0.03
 """Half-length of the floor strokes on the shape chart, in its relative units."""
@@ -87,7 +87,7 @@ class PeriodChart(_ModeBarChart):
     def __init__(self, parent: object = None) -> None:
         super().__init__(parent)
         self.setObjectName("modePeriodChart")
-        key = colour_key(tuple((KIND_SYMBOLS[kind], KIND_BAR_COLOURS[kind]) for kind in ModeKind))
+        key = colour_key(tuple((MODE_KIND_SYMBOLS[kind], KIND_BAR_COLOURS[kind]) for kind in ModeKind))
         _style(self.getPlotItem(), "mode", "period T (s)", f"Periods {key}")
         self._bars = pg.BarGraphItem(x=[], height=[], width=BAR_WIDTH)
         self.addItem(self._bars)

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 from PySide6.QtGui import QColor
 
+from core.report.figures import MODE_KIND_WORDS
 from core.results import Mode, ModeKind
 
 X_COLOUR = QColor("#2f6db5")
@@ -27,24 +28,18 @@ SELECTED_BAR = QColor("#2b2a27")
 CHART_BACKGROUND = QColor("#fbfaf7")
 TEXT = QColor("#2b2a27")
 
-KIND_WORDS = {
-    ModeKind.X: "x translation",
-    ModeKind.Y: "y translation",
-    ModeKind.TORSION: "torsion",
-    ModeKind.MIXED: "mixed",
-}
 
 
 def mode_caption(mode: Mode) -> str:
     """One line that names a mode: number, period, what it does and its energy shares."""
     x, y, r = (round(100 * s) for s in mode.shares)
-    return (f"Mode {mode.number} · T = {mode.period:.3f} s · {KIND_WORDS[mode.kind]} "
+    return (f"Mode {mode.number} · T = {mode.period:.3f} s · {MODE_KIND_WORDS[mode.kind]} "
             f"(energy x {x} %, y {y} %, θ {r} %)")
 
 
 def mode_label(mode: Mode) -> str:
     """A short name for lists: number, period and what it does."""
-    return f"Mode {mode.number} · {mode.period:.3f} s · {KIND_WORDS[mode.kind]}"
+    return f"Mode {mode.number} · {mode.period:.3f} s · {MODE_KIND_WORDS[mode.kind]}"
 
 
 def colour_key(items: tuple[tuple[str, QColor], ...]) -> str:

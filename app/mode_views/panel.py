@@ -37,6 +37,7 @@ from app.mode_views.palette import UNDEFORMED, mode_caption, mode_label
 from app.mode_views.plan_view import PlanMotionView
 from core.model import Point
 from core.report.mode_frames import BuildingGeometry, building_geometry, peak_scale
+from core.report.summary import CAUTION
 from core.results import Results
 
 if TYPE_CHECKING:
@@ -51,8 +52,7 @@ CHROME_HEIGHT = 60
 DRAG_REFRESH_MS = 120
 """While a drag is under way the views rebuild at most this often; the animation runs on between."""
 """Height of the control row and the footer, px (roughly)."""
-CAUTION = ("Concept-stage estimate (rigid floors, elements stiff in their own plane only): verify with a full "
-           "analysis, follow the local code, defer to licensed practice.")
+
 
 
 def rigidity_centres(results: Results) -> list[Point | None]:
@@ -133,7 +133,7 @@ class ModeViewsPanel(QWidget):
         self.amplitude_label = QLabel()
         self.floor_box = QComboBox()
         self.floor_box.setObjectName("floorChoice")
-        self.floor_box.setToolTip("The floor drawn bold, with its elements and centres, in the plan")
+        self.floor_box.setToolTip("The floor highlighted in the plan, with its elements and centres")
 
     def _build_layout(self) -> None:
         controls = QHBoxLayout()

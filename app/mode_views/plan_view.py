@@ -80,7 +80,7 @@ class PlanMotionView(pg.PlotWidget):
         self._rest_outlines.set_segments(geometry.outlines.xy)
         self._rest_markers.set_segments(np.concatenate([rest["mass"], rest["rigidity"]]))
         name = floors[floor].name if floor < len(floors) else ""
-        title = f"Plan · {name} bold"
+        title = f"Plan · {name} highlighted"
         if title != self._title:
             self._title = title
             self.getPlotItem().setTitle(title, size="9pt")

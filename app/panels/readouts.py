@@ -17,10 +17,11 @@ from PySide6.QtWidgets import QLabel, QScrollArea, QToolTip, QVBoxLayout, QWidge
 
 from app.canvas import style
 from app.document import ProjectDocument
-from app.panels.results import CAUTION, fmt_number, mode_type
+from app.panels.results import fmt_number, mode_type
 from app.panels.verdicts import STATUS_WORDS, check_summaries, colour_of
 from core.lateral.records import Check
 from core.report.figures import CODE_LIMITS, verdict_figures
+from core.report.summary import CAUTION
 
 GREY = QColor("#6d695f")
 HEADING = QFont("DejaVu Sans", 9, QFont.Weight.Bold)
@@ -250,11 +251,11 @@ class ReadoutsPanel(QWidget):
             verdicts = [v for v in judged if v.direction == d]
             status = max(verdicts, key=lambda v: v.value).status if verdicts else None
             colours.append(colour_of(status) if status else QColor(style.FLOOR_EDGE))
-            word = STATUS_WORDS[status] if status else "not judged by these limits"
+            word = STATUS_WORDS[status] if status else "not judged by the code limits"
             texts += [f"load in {d}:", fmt_number(worst_value, 2), f"{storey} · {word}"]
         self.board.torsion_colours = (colours[0], colours[1])
         rows = [
-            Row("heading", ("Worst torsion ratio", "max end drift / mean, ±e accidental")),
+            Row("heading", ("Worst torsion ratio", "δmax/δavg of the end drifts, ±e accidental")),
             Row("torsion", tuple(texts)),
             Row("heading", ("Periods",)),
         ]

@@ -24,24 +24,19 @@ from PySide6.QtWidgets import (
 
 from app.document import ProjectDocument
 from app.drag_throttle import DragThrottle
+from core.report.figures import MODE_KIND_WORDS
+from core.report.summary import CAUTION
 from core.results import Mode, ModeKind, Results
-
-CAUTION = (
-    "Concept-stage estimate from a rigid-floor model (elements stiff in their own plane only). "
-    "Verify with a full analysis, follow the governing local code, and defer to a licensed engineer."
-)
-
-MODE_WORDS = {ModeKind.X: "x", ModeKind.Y: "y", ModeKind.TORSION: "torsion", ModeKind.MIXED: "mixed"}
 
 
 def mode_type(mode: Mode) -> str:
-    """``y`` or ``mixed (x 52 %, θ 41 %)``: what the mode does."""
+    """``y translation`` or ``mixed (x 52 %, θ 41 %)``: what the mode does."""
     if mode.kind is not ModeKind.MIXED:
-        return MODE_WORDS[mode.kind]
+        return MODE_KIND_WORDS[mode.kind]
     parts = [
         f"{name} {100 * share:.0f} %" for name, share in zip(("x", "y", "θ"), mode.shares, strict=True) if share >= 0.1
     ]
-    return f"mixed ({', '.join(parts)})"
+    return f"{MODE_KIND_WORDS[ModeKind.MIXED]} ({', '.join(parts)})"
 
 
 def fmt_number(value: float | None, digits: int = 3) -> str:

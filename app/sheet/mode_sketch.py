@@ -12,11 +12,12 @@ import math
 from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QBrush, QColor, QPolygonF
 
-from app.mode_views.palette import KIND_WORDS, ROTATION_COLOUR, X_COLOUR, Y_COLOUR
+from app.mode_views.palette import ROTATION_COLOUR, X_COLOUR, Y_COLOUR
 from app.sheet.content import period_text
 from app.sheet.painting import ALIGN_LEFT, INK, MUTED, RULE, Paper
 from app.sheet.plan_drawing import MASS_COLOUR, mass_centre_mark
 from core.model import Project
+from core.report.figures import MODE_KIND_WORDS
 from core.report.mode_frames import AttachedPoints, LayerMotion, building_geometry, height_profile, peak_scale
 from core.results import Mode, Results
 
@@ -36,7 +37,7 @@ def mode_caption(mode: Mode) -> tuple[str, str]:
     """The two caption lines of a sketch: number and period, then kind and mass shares."""
     first = f"Mode {mode.number}   T = {period_text(mode.period)} s"
     mx, my, mr = (100 * v for v in mode.mass_ratio)
-    second = f"{KIND_WORDS[mode.kind]} · mass x {mx:.0f} %, y {my:.0f} %, θ {mr:.0f} %"
+    second = f"{MODE_KIND_WORDS[mode.kind]} · mass x {mx:.0f} %, y {my:.0f} %, θ {mr:.0f} %"
     return first, second
 
 

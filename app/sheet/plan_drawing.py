@@ -17,6 +17,7 @@ from dataclasses import dataclass
 from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QBrush, QColor, QPainterPath, QPolygonF
 
+from app.canvas.centre_marks import draw_centre_mark
 from app.canvas.style import MASS_CENTRE, RIGIDITY_CENTRE
 from app.kinds import app_kind, app_kinds
 from app.sheet.painting import ALIGN_CENTRE, ALIGN_LEFT, ALIGN_RIGHT, INK, MUTED, Paper
@@ -78,27 +79,15 @@ def ring_path(scale: PlanScale, rings: Sequence[Sequence[Point]]) -> QPainterPat
 
 
 def mass_centre_mark(paper: Paper, at: QPointF, colour: QColor = MASS_COLOUR, radius_mm: float = MARKER_MM) -> None:
-    painter = paper.painter
-    r = paper.mm(radius_mm)
-    painter.setPen(paper.pen(colour, 0.3))
-    painter.setBrush(QBrush(QColor(255, 255, 255)))
-    painter.drawEllipse(at, r, r)
-    painter.drawLine(QPointF(at.x() - r, at.y()), QPointF(at.x() + r, at.y()))
-    painter.drawLine(QPointF(at.x(), at.y() - r), QPointF(at.x(), at.y() + r))
+    """The canvas's mass-centre mark, sized in millimetres of paper."""
+    draw_centre_mark(paper.painter, "mass", at, paper.mm(radius_mm), paper.pen(colour, 0.3))
 
 
 def rigidity_centre_mark(
     paper: Paper, at: QPointF, colour: QColor = RIGIDITY_COLOUR, radius_mm: float = MARKER_MM
 ) -> None:
-    painter = paper.painter
-    r = paper.mm(radius_mm)
-    painter.setPen(paper.pen(colour, 0.3))
-    painter.setBrush(QBrush(QColor(255, 255, 255)))
-    painter.drawPolygon(QPolygonF([QPointF(at.x() + r, at.y()), QPointF(at.x(), at.y() - r),
-                                   QPointF(at.x() - r, at.y()), QPointF(at.x(), at.y() + r)]))
-    painter.setBrush(QBrush(colour))
-    q = 0.4 * r
-    painter.drawRect(QRectF(at.x() - q, at.y() - q, 2 * q, 2 * q))
+    """The canvas's rigidity-centre mark, sized in millimetres of paper."""
+    draw_centre_mark(paper.painter, "rigidity", at, paper.mm(radius_mm), paper.pen(colour, 0.3))
 
 
 def _unit(a: QPointF, b: QPointF) -> tuple[float, float]:

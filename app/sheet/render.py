@@ -298,7 +298,7 @@ class SheetPainter:
 
     def caution_block(self) -> Block:
         paper = self.paper
-        text = "Caution — " + self.content.caution + " Figures from a rigid-floor model of the lateral system only."
+        text = "Caution — " + self.content.caution
         font = paper.font(7.0, bold=True, scaled=False)
         pad = paper.mm(1.6)
 

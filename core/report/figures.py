@@ -7,7 +7,18 @@ from __future__ import annotations
 import math
 
 from core.lateral.records import Check, Verdict
+from core.results import ModeKind
 
+MODE_KIND_WORDS = {
+    ModeKind.X: "x translation",
+    ModeKind.Y: "y translation",
+    ModeKind.TORSION: "torsion",
+    ModeKind.MIXED: "mixed",
+}
+"""What a mode does, in words: the one table for tables, readouts, mode views and the sheet."""
+MODE_KIND_SYMBOLS = {ModeKind.X: "x", ModeKind.Y: "y", ModeKind.TORSION: "θ",
+                     ModeKind.MIXED: MODE_KIND_WORDS[ModeKind.MIXED]}
+"""The same in one symbol, for chart keys where words do not fit."""
 MODE_NUMBER_CHECKS = frozenset({Check.TORSION_MODE_ORDER})
 """Verdicts whose value and limit are mode numbers (shown as integers)."""
 SIGNIFICANT = 4

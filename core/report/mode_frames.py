@@ -150,7 +150,7 @@ class BuildingGeometry:
     plan_elements: Mapping[Kind, AttachedPoints]
     """Each element's plan line on every floor it reaches, as segments."""
     frame_lines: Mapping[Kind, AttachedPoints]
-    """In elevation, storey by storey: columns, beams and braces of frames, spring lines (segments)."""
+    """In elevation, storey by storey: columns, beams and braces of frames, storey springs (segments)."""
     wall_panels: AttachedPoints
     """Shear walls storey by storey as closed quads (QUAD_ROWS rows each)."""
     mass_markers: AttachedPoints

@@ -46,9 +46,10 @@ from core.report.figures import CODE_LIMITS, verdict_figures
 from core.results import Results
 
 CAUTION = (
-    "Concept-stage estimate: verify with a full analysis, follow the governing local code, "
-    "and defer to a licensed engineer's judgement."
+    "Concept-stage estimate from a rigid-floor model of the lateral system: verify with a full "
+    "analysis, follow the governing local code, and defer to a licensed engineer's judgement."
 )
+"""The one caution text: the GUI, the sheet, the text summary and the README carry these words."""
 
 
 def results_to_dict(project: Project, results: Results) -> dict[str, Any]:
