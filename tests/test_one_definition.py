@@ -11,7 +11,7 @@ from PySide6.QtWidgets import QLabel
 from app.resources import sample_path
 from core.model.fileio import load_project
 from core.report.summary import CAUTION
-from tests.test_gui_support import make_window
+from tests.helpers import make_window
 
 ROOT = Path(__file__).resolve().parents[1]
 
