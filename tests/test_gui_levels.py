@@ -8,8 +8,8 @@ import pytest
 from PySide6.QtCore import QPoint, Qt
 from PySide6.QtTest import QTest
 
-from app.commands import add_level_on_top, delete_level, duplicate_level, insert_level_below
 from core.model import Element, Level, Project, Spring
+from core.model.edits import add_level_on_top, delete_level, duplicate_level, insert_level_below
 from tests.helpers import RECTANGLE_36_18, frame, make_window, settle
 
 

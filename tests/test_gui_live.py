@@ -5,11 +5,11 @@ from __future__ import annotations
 
 import pytest
 
-from app.commands import move_elements
 from app.panels.results import mode_type
 from app.resources import sample_path
 from core.analysis import analyse
 from core.errors import AnalysisError
+from core.model.edits import move_elements
 from core.model.fileio import load_project
 from tests.helpers import drag, frame, make_window, one_storey, settle
 
