@@ -12,7 +12,7 @@ from dataclasses import dataclass, field
 from typing import ClassVar
 
 from PySide6.QtCore import QEvent, QPoint, QRectF, Qt
-from PySide6.QtGui import QColor, QFont, QFontMetrics, QHelpEvent, QPainter, QPaintEvent
+from PySide6.QtGui import QColor, QFont, QFontMetrics, QHelpEvent, QPainter, QPaintEvent, QShowEvent
 from PySide6.QtWidgets import QLabel, QScrollArea, QToolTip, QVBoxLayout, QWidget
 
 from app.canvas import style
@@ -215,7 +215,21 @@ class ReadoutsPanel(QWidget):
         layout.addWidget(self.caution)
         layout.addWidget(scroll, 1)
         document.results_changed.connect(self.refresh)
-        self.refresh()
+        self._stale = False
+        """Results arrived while the panel was hidden (its dock closed or behind a tab)."""
+        self._fill()
+
+    def showEvent(self, event: QShowEvent) -> None:
+        super().showEvent(event)
+        if self._stale:
+            self._fill()
+
+    def refresh(self) -> None:
+        """Show the latest results now, or when the panel is next shown if it is hidden."""
+        if self.isVisible():
+            self._fill()
+        else:
+            self._stale = True
 
     def torsion_values(self) -> tuple[float, float] | None:
         """(worst x, worst y) torsion ratio shown, or None when no results are shown."""
@@ -227,7 +241,8 @@ class ReadoutsPanel(QWidget):
     def text(self) -> str:
         return self.board.plain_text()
 
-    def refresh(self) -> None:
+    def _fill(self) -> None:
+        self._stale = False
         document = self.document
         results = document.results
         if results is None:
