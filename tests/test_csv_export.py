@@ -123,13 +123,12 @@ def test_default_stem_comes_from_the_project_name(tmp_path):
 
 
 def test_csv_action_writes_into_the_chosen_folder(qtbot, tmp_path, monkeypatch):
-    from app.exchange.actions import ExchangeActions
     from app.main_window import MainWindow
 
     window = MainWindow(settings=QSettings(str(tmp_path / "poise.ini"), QSettings.Format.IniFormat))
     qtbot.addWidget(window)
     window.document.reset(load_project(SAMPLES[0]), SAMPLES[0])
-    exchange = window.findChild(ExchangeActions)
+    exchange = window.exchange
     monkeypatch.setattr("app.exchange.actions.QFileDialog.getExistingDirectory", lambda *a, **k: str(tmp_path))
     exchange.csv_action.trigger()
     written = sorted(p.name for p in tmp_path.glob("*.csv"))

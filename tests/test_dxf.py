@@ -250,14 +250,12 @@ def test_shifted_underlay_moves_segments_and_rings(architect_dxf):
 
 @pytest.fixture
 def window(qtbot, tmp_path):
-    from app.exchange.actions import ExchangeActions
     from app.main_window import MainWindow
 
     window = MainWindow(settings=QSettings(str(tmp_path / "poise.ini"), QSettings.Format.IniFormat))
     qtbot.addWidget(window)
     window.document.reset(load_project(SAMPLES[0]), SAMPLES[0])
     window.document.flush_analysis()
-    window.exchange = window.findChild(ExchangeActions)
     return window
 
 

@@ -267,7 +267,6 @@ def test_tall_building_still_gives_one_page_saying_what_it_left_out(tmp_path, qa
 @pytest.fixture
 def window(qtbot, tmp_path):
     """The editor on the office sample; its exchange actions were installed by the window itself."""
-    from app.exchange.actions import ExchangeActions
     from app.main_window import MainWindow
 
     settings = QSettings(str(tmp_path / "poise.ini"), QSettings.Format.IniFormat)
@@ -275,7 +274,6 @@ def window(qtbot, tmp_path):
     qtbot.addWidget(window)
     window.document.reset(load_project(SAMPLES[0]), SAMPLES[0])
     window.document.flush_analysis()
-    window.exchange = window.findChild(ExchangeActions)
     return window
 
 
