@@ -16,6 +16,7 @@ from PySide6.QtGui import QColor, QImage, QPainter
 from app.canvas.style import pen
 from app.kinds import AppKindSpec, app_kinds, register_app_kind, unregister_app_kind
 from app.panels.fields import Row
+from app.resources import icon_path
 from app.sheet.painting import Paper
 from app.sheet.render import render_sheet
 from app.units import STIFFNESS
@@ -145,3 +146,13 @@ def test_an_app_kind_needs_its_core_half_and_a_free_shortcut():
         clash = AppKindSpec(**{**STRUT_APP_SPEC.__dict__, "shortcut": "B"})
         with pytest.raises(ValueError, match="shortcut 'B' already places braced frames"):
             register_app_kind(clash)
+
+
+def test_every_drawing_tool_has_its_icon_and_its_own_key(qtbot, tmp_path):
+    window = make_window(qtbot, tmp_path)
+    tools = window.drawing.tools.values()
+    missing = [tool.name for tool in tools if not icon_path(tool.icon).exists()]
+    assert missing == []
+    keys = [tool.shortcut for tool in tools]
+    assert len(set(keys)) == len(keys)
+    assert {f"place-{spec.kind}" for spec in app_kinds()} <= set(window.drawing.tools)
