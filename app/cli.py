@@ -29,11 +29,20 @@ def _analyse_parser() -> argparse.ArgumentParser:
     return parser
 
 
+COMMANDS = {
+    "analyse": "analyse FILE [--json]: print the results of a project (or their JSON)",
+    "sheet": "sheet FILE -o OUT.pdf [--level N] [--paper a4|letter] [--landscape]: write the one-page sheet",
+}
+"""The commands besides opening the editor, with the help line of each (``poise COMMAND --help`` tells more)."""
+
+
 def _editor_parser() -> argparse.ArgumentParser:
     parser = argparse.ArgumentParser(
         prog="poise",
-        description="Concept-stage lateral layout: open the editor, or use 'poise analyse FILE'.",
-        epilog="commands: analyse FILE [--json]",
+        description="Concept-stage lateral layout: open the editor on FILE, or run one of the commands below.",
+        epilog="commands:\n" + "\n".join(f"  poise {line}" for line in COMMANDS.values())
+        + "\n\n'poise COMMAND --help' describes a command's options.",
+        formatter_class=argparse.RawDescriptionHelpFormatter,
     )
     parser.add_argument("file", nargs="?", type=Path, help="a .poise project to open (default: a bundled sample)")
     return parser

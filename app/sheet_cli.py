@@ -26,7 +26,7 @@ def add_sheet_command(subparsers: argparse._SubParsersAction) -> argparse.Argume
     parser.add_argument("file", type=Path, help="the .poise project file")
     parser.add_argument("-o", "--output", type=Path, required=True, metavar="OUT.pdf", help="the PDF to write")
     parser.add_argument("--level", type=int, metavar="N",
-                        help="level drawn in plan, 1 = first floor (default: the worst torsion ratio)")
+                        help="level drawn in plan, 1 = lowest floor above the base (default: the worst torsion ratio)")
     parser.add_argument("--paper", choices=("a4", "letter"), default="a4", help="paper size (default a4)")
     parser.add_argument("--landscape", action="store_true", help="landscape page (default portrait)")
     parser.add_argument("--revision", default="", help="revision for this print (default: the project's revision)")

@@ -54,3 +54,21 @@ def test_missing_file_exits_2(tmp_path, capsys):
     assert main(["analyse", str(tmp_path / "nothing.poise")]) == 2
     assert "cannot read" in capsys.readouterr().err
     assert main([str(tmp_path / "nothing.poise")]) == 2
+
+
+def test_help_lists_every_command_with_its_purpose(capsys):
+    from app.cli import COMMANDS
+
+    with pytest.raises(SystemExit):
+        main(["--help"])
+    text = capsys.readouterr().out
+    assert set(COMMANDS) == {"analyse", "sheet"}
+    for name in COMMANDS:
+        assert f"poise {name}" in text
+
+
+def test_level_help_names_the_floor_plainly(capsys):
+    with pytest.raises(SystemExit):
+        main(["sheet", "--help"])
+    text = " ".join(capsys.readouterr().out.split())
+    assert "1 = lowest floor above the base" in text and "first floor" not in text
