@@ -72,3 +72,11 @@ def test_level_help_names_the_floor_plainly(capsys):
         main(["sheet", "--help"])
     text = " ".join(capsys.readouterr().out.split())
     assert "1 = lowest floor above the base" in text and "first floor" not in text
+
+
+def test_samples_name_plainly_invented_people_and_places():
+    from core.model.fileio import load_project
+
+    for path in sample_projects():
+        project = load_project(path)
+        assert project.name.startswith("Sample ") and project.engineer == "A. Engineer"
