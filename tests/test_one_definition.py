@@ -27,6 +27,7 @@ def test_the_caution_is_written_once_and_every_view_shows_that_text(qtbot, tmp_p
     cautions = [label.text() for label in window.findChildren(QLabel) if "licensed" in label.text()]
     assert len(cautions) >= 3 and set(cautions) == {CAUTION}
     assert "rigid-floor" in CAUTION
+    assert CAUTION in " ".join((ROOT / "README.md").read_text().split())
 
 
 def test_mode_kind_words_come_from_one_table(qtbot, tmp_path):
