@@ -58,7 +58,7 @@ def two_wall_building(
 
 
 def wall_stiffness(length: float, height: float, wall: ShearWall = WALL) -> float:
-    """Timoshenko cantilever, tip load: 1/(h³/(3EI) + h/(κGA)) (references.md), cracked factor."""
+    """Timoshenko cantilever, tip load: 1/(h³/(3EI) + h/(κGA)) (docs/sources.md), cracked factor."""
     E = wall.stiffness_factor * wall.modulus
     G = E / (2 * (1 + wall.poisson))
     inertia = wall.thickness * length**3 / 12
@@ -128,7 +128,7 @@ def test_asce7_torsion_verdicts_follow_table_12_3_1():
 
 
 def test_amplification_of_asce7_12_8_4_3():
-    # references.md check: ratio 1.414 → A_x = (1.414/1.2)² = 1.388 (ASCE 7-16 Eq. 12.8-14).
+    # check (docs/sources.md): ratio 1.414 → A_x = (1.414/1.2)² = 1.388 (ASCE 7-16 Eq. 12.8-14).
     assert amplification(np.array([[1.414, 0.586]]))[0] == pytest.approx(1.3885, abs=1e-4)
     assert amplification(np.array([[1.1, 0.9]]))[0] == 1.0  # not below 1
     assert amplification(np.array([[2.0, 0.0]]))[0] == pytest.approx((2 / 1.2) ** 2)
@@ -179,7 +179,7 @@ def test_no_twist_centre_makes_no_floor_rotate():
 
 def test_proportionate_system_centres_agree():
     # For proportionate systems (all element matrices proportional) the storey centres (a) and the
-    # floor centres (b) coincide (Hejal & Chopra 1989; Tso 1990 — references.md).
+    # floor centres (b) coincide (Hejal & Chopra 1989; Tso 1990 — docs/sources.md).
     levels = tuple(Level(f"L{j + 1}", 3.2, rectangle(30.0, 20.0)) for j in range(5))
     walls = (
         Element("W1", (0.0, 2.0), (0.0, 8.0), 0, 5, WALL),

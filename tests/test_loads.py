@@ -1,7 +1,7 @@
 """Design spectra, base shear, vertical distributions and load cases (core/lateral/loads.py).
 
 Each external value names its source beside it; "[memory]" marks a value recalled, not read in
-the standard (see /work/shared/references.md).
+the standard (see docs/sources.md).
 """
 
 from __future__ import annotations
@@ -50,7 +50,7 @@ GROUND_B = Eurocode8Spectrum(ag=0.25, ground_type="B", spectrum_type=1, behaviou
     ("period", "expected"),
     [
         # EN 1998-1 §3.2.2.2 Eqs. 3.2–3.5, Table 3.2 ground B (S = 1.2, T_B 0.15, T_C 0.5, T_D 2.0),
-        # η = 1 at 5 %; check values of references.md: S_e(0) = 0.30 g, plateau 0.75 g, S_e(0.8) = 0.46875 g.
+        # η = 1 at 5 %; check values (docs/sources.md): S_e(0) = 0.30 g, plateau 0.75 g, S_e(0.8) = 0.46875 g.
         (0.0, 0.30),
         (0.075, 0.30 * (1 + 0.5 * (2.5 - 1))),  # half-way up the rising branch: 0.525 g
         (0.15, 0.75),  # T_B
@@ -117,7 +117,7 @@ ASCE = Asce7Spectrum(sds=1.0, sd1=0.6, s1=0.6, long_period=8.0, response_modific
 
 
 def test_asce7_response_coefficient_worked_case():
-    # references.md check: S_DS = 1.0, S_D1 = 0.6, R = 8, I_e = 1, T = 1.2 s → C_s = 0.0625
+    # check (docs/sources.md): S_DS = 1.0, S_D1 = 0.6, R = 8, I_e = 1, T = 1.2 s → C_s = 0.0625
     # (ASCE 7-16 §12.8.1.1 Eq. 12.8-3 governs: 0.6 / (1.2 · 8)).
     assert asce7_response_coefficient(1.2, ASCE) == pytest.approx(0.0625, rel=1e-12)
 

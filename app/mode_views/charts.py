@@ -28,7 +28,7 @@ from core.results import ModeKind, Results
 BAR_WIDTH = 0.7
 TARGET_MASS_RATIO = 0.9
 """Cumulative effective mass the modes considered should reach: 90 % of the total
-(EN 1998-1 §4.3.3.3.1(3), from memory: see shared references)."""
+(EN 1998-1 §4.3.3.3.1(3), from memory: docs/sources.md)."""
 HEADROOM = 1.08
 """Top of the mass chart over its tallest figure, so the 100 % lines stay clear of the frame."""
 COMPONENT_NAMES = ("x", "y", "θ")

@@ -41,7 +41,7 @@ EN1998_GROUND: dict[int, dict[str, GroundParameters]] = {
         "D": GroundParameters(1.35, 0.20, 0.8, 2.0),
         "E": GroundParameters(1.4, 0.15, 0.5, 2.0),
     },
-    # EN 1998-1 Table 3.3, Type 2 recommended values [from memory; not in references.md].
+    # EN 1998-1 Table 3.3, Type 2 recommended values [from memory: docs/sources.md].
     2: {
         "A": GroundParameters(1.0, 0.05, 0.25, 1.2),
         "B": GroundParameters(1.35, 0.05, 0.25, 1.2),
@@ -117,7 +117,7 @@ def asce7_design_spectrum(period: float, spectrum: Asce7Spectrum) -> float:
 
 def asce7_response_coefficient(period: float, spectrum: Asce7Spectrum) -> float:
     """Seismic response coefficient C_s with its caps and floors (ASCE 7-16 §12.8.1.1
-    Eqs. 12.8-2 to 12.8-6; the floors are [from memory] in references.md)."""
+    Eqs. 12.8-2 to 12.8-6; the floors are from memory: docs/sources.md)."""
     r_over_i = spectrum.response_modification / spectrum.importance
     cs = spectrum.sds / r_over_i
     if period <= spectrum.long_period:
@@ -132,7 +132,7 @@ def asce7_response_coefficient(period: float, spectrum: Asce7Spectrum) -> float:
 
 
 EN1998_PERIOD_COEFFICIENT: dict[SystemType, float] = {
-    # EN 1998-1 §4.3.3.2.2(3) Eq. 4.6, C_t for H in m [values from memory in references.md].
+    # EN 1998-1 §4.3.3.2.2(3) Eq. 4.6, C_t for H in m [values from memory: docs/sources.md].
     SystemType.STEEL_MOMENT: 0.085,
     SystemType.CONCRETE_MOMENT: 0.075,
     SystemType.ECCENTRIC_BRACED: 0.075,

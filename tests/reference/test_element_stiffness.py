@@ -315,7 +315,7 @@ RIGID_AREA = 1.0e3
 
 
 def test_single_diagonal_with_rigid_columns() -> None:
-    """Standard truss result k = EA cos²θ / L_brace; references.md: E = 200 GPa, A = 2000 mm²,
+    """Standard truss result k = EA cos²θ / L_brace; docs/sources.md: E = 200 GPa, A = 2000 mm²,
     bay 6 m, storey 4 m → 3.8402e7 N/m = 3.8402e4 kN/m."""
     frame = BracedFrame(pattern=BracePattern.SINGLE, modulus=2.0e8, brace_area=2.0e-3, column_area=RIGID_AREA)
     k = condensed_stiffness(frame, 6.0, (4.0,))[0, 0]
@@ -399,7 +399,7 @@ def _wall_sections(wall: ShearWall, length: float) -> tuple[float, float]:
 
 def test_wall_tip_deflection() -> None:
     """Timoshenko cantilever under a tip load P: δ = PH³/(3EI) + PH/(κGA), κ = 5/6
-    (standard beam theory, references.md); EI and κGA both times the cracking factor
+    (standard beam theory, docs/sources.md); EI and κGA both times the cracking factor
     (EN 1998-1 §4.3.1(7))."""
     wall, L, H = ShearWall(), 4.0, 3.2
     EI, kGA = _wall_sections(wall, L)
@@ -409,7 +409,7 @@ def test_wall_tip_deflection() -> None:
 
 def test_wall_multi_storey_flexibility() -> None:
     """Cantilever flexibility f_ij = a²(3b − a)/(6EI) + a/(κGA), a = min(z_i, z_j),
-    b = max(z_i, z_j) (standard beam theory, references.md); K = F⁻¹."""
+    b = max(z_i, z_j) (standard beam theory, docs/sources.md); K = F⁻¹."""
     wall, L = ShearWall(thickness=0.3, poisson=0.15, stiffness_factor=0.6), 6.0
     EI, kGA = _wall_sections(wall, L)
     z = np.cumsum(UNEQUAL)

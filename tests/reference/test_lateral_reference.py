@@ -5,8 +5,8 @@
    K_θ = Σk_y(x − x_r)² + Σk_x(y − y_r)² about the centre of rigidity (e.g. Paulay & Priestley,
    Seismic Design of Reinforced Concrete and Masonry Buildings, 1992, ch. 5 [memory for the
    chapter]); r_x = √(K_θ/K_y), r_y = √(K_θ/K_x) and l_s = √(I_p/m) = √((L² + B²)/12) for a
-   uniform rectangle (EN 1998-1 §4.2.3.2(6); references.md). Wall stiffness from the Timoshenko
-   cantilever δ = h³/(3EI) + h/(κGA), κ = 5/6 (references.md).
+   uniform rectangle (EN 1998-1 §4.2.3.2(6); docs/sources.md). Wall stiffness from the Timoshenko
+   cantilever δ = h³/(3EI) + h/(κGA), κ = 5/6 (docs/sources.md).
 2. The torsion ratio of the same building by rigid-floor statics about the centre of rigidity.
 3. The unbalanced sample office: moving its braced frame B2 east, toward balance, lowers the
    largest torsion ratio; the value is recomputed independently with numpy from K.
