@@ -189,7 +189,7 @@ def _storeys(
     corner_ratio = np.column_stack([drift["x"][1], drift["y"][1]]).tolist()
     above = _applicable(np.column_stack([ratios["x"][0], ratios["y"][0]]))
     average = _applicable(np.column_stack([ratios["x"][1], ratios["y"][1]]))
-    stiffness = storey_k.tolist()
+    stiffness = _applicable(storey_k)
     twists = no_twist.tolist()
     twist_known = (~np.any(np.isnan(no_twist), axis=1)).tolist()
     twist_values = np.nan_to_num(no_twist).tolist()

@@ -204,8 +204,9 @@ class StoreyLateral:
     """Design storey drift at the mass centre over the storey height, worst case, x and y."""
     corner_drift_ratio: tuple[float, float]
     """Design storey drift at the worst outline vertex over the storey height, x and y."""
-    storey_stiffness: tuple[float, float]
-    """Storey shear over storey drift at the mass centre under the centred load cases, kN/m."""
+    storey_stiffness: tuple[float | None, float | None]
+    """Storey shear over storey drift at the mass centre under the centred load cases, kN/m; None
+    where the mass centre does not drift with the load (a mass centre far off the plan)."""
     stiffness_ratio_above: tuple[float | None, float | None]
     """Storey stiffness over that of the storey above, x and y; None where it does not apply
     (the top storey, or a storey above without stiffness)."""
