@@ -146,16 +146,23 @@ def _figures(
         rotation[chunk] = (phi[:, 2::3] ** 2 * mass[None, 2::3, None]).sum(axis=1)
         ratios = np.einsum("bim,i,ri->bmr", phi, mass, iota) ** 2 / totals
         dominant = ratios[..., :2].argmax(axis=1)  # (B, 2): the mode with the largest mass in x and in y
+        # Offsets whose periods give the same load pattern share it (always, but under ASCE 7's
+        # period-dependent distribution): their load cases and storey matrices go together.
+        groups: dict[bytes, tuple[FloatArray, list[int]]] = {}
         for b in np.flatnonzero(ok).tolist():
-            g = first + b
-            loads = [static_load(d, settings, floors, periods[g, dominant[b, a]]) for a, d in enumerate(DIRECTIONS)]
+            loads = [
+                static_load(d, settings, floors, periods[first + b, dominant[b, a]]) for a, d in enumerate(DIRECTIONS)
+            ]
             patterns = np.stack(
                 [vertical_distribution(1.0, masses, elevations, load.distribution_exponent) for load in loads]
             )
-            torsion[g] = _worst_torsion(K[b], solved, patterns, eccentricity, centres, ends)
+            groups.setdefault(patterns.tobytes(), (patterns, []))[1].append(b)
+        for patterns, members in groups.values():
+            at = [first + b for b in members]
+            torsion[at] = _worst_torsion(K[members], solved, patterns, eccentricity, centres, ends)
             storeys = _storey_matrices(project, kept, index, patterns, centres, storey_cache)
-            storeys = storeys + _element_rows(moved[b], matrix, patterns, centres)
-            ecc_ratio[g] = _eccentricity_ratios(storeys)
+            rows = np.stack([_element_rows(moved[b], matrix, patterns, centres) for b in members])
+            ecc_ratio[at] = _eccentricity_ratios(storeys[None] + rows)
 
     stands = stiff[where] & _inside(project, element, starts, starts + 2 * half)
     periods, rotation, torsion, ecc_ratio = (array[where] for array in (periods, rotation, torsion, ecc_ratio))
@@ -186,19 +193,22 @@ def _worst_torsion(
     eccentricity: FloatArray,
     centres: FloatArray,
     ends: dict[str, FloatArray],
-) -> list[float]:
-    """Worst torsion ratio over the storeys and ``cases`` in x and in y (1 without cases)."""
+) -> FloatArray:
+    """(G, 2) worst torsion ratio over the storeys and ``cases`` in x and in y (1 without cases)
+    for each stiffness of ``K`` (G, 3N, 3N) under the same ``patterns``."""
     n = len(centres)
     if not cases:
-        return [1.0, 1.0]
+        return np.ones((len(K), 2))
     loads = np.column_stack(
         [case_load_vector(c, patterns[DIRECTIONS.index(c.direction)], eccentricity)[0] for c in cases]
     )
-    unit = np.linalg.solve(K, loads).T.reshape(len(cases), n, 3)
-    worst = []
-    for d in DIRECTIONS:
+    unit = np.linalg.solve(K, np.broadcast_to(loads, (len(K), *loads.shape)))
+    unit = unit.transpose(0, 2, 1).reshape(len(K), len(cases), n, 3)
+    worst = np.ones((len(K), 2))
+    for a, d in enumerate(DIRECTIONS):
         rows = [i for i, c in enumerate(cases) if c.direction == d]
-        worst.append(float(end_ratio(storey_drifts(unit[rows], centres, ends[d], d)).max()) if rows else 1.0)
+        if rows:
+            worst[:, a] = end_ratio(storey_drifts(unit[:, rows], centres, ends[d], d)).max(axis=(1, 2))
     return worst
 
 
@@ -238,9 +248,9 @@ def _element_rows(
 
 
 def _eccentricity_ratios(matrices: FloatArray) -> FloatArray:
-    """(N, 2) |e_0x|/r_x and |e_0y|/r_y as StoreyLateral.eccentricity_ratio (0 where undefined)."""
+    """(…, N, 2) |e_0x|/r_x and |e_0y|/r_y as StoreyLateral.eccentricity_ratio (0 where undefined)."""
     stands, offsets, _, radii = storey_property_arrays(matrices)
-    e = np.abs(np.where(stands[:, None], offsets, 0.0))
+    e = np.abs(np.where(stands[..., None], offsets, 0.0))
     with np.errstate(divide="ignore", invalid="ignore"):
         return np.where(radii > 0, e / radii, np.where(e == 0, 0.0, np.inf))
 
