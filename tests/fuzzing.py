@@ -88,7 +88,7 @@ def mutate(document: dict[str, Any], rng: random.Random) -> dict[str, Any]:
         kind = rng.random()
         if kind < 0.3:
             parent[key] = _extreme(rng)
-        elif kind < 0.5 and isinstance(value, int | float) and not isinstance(value, bool):
+        elif kind < 0.5 and isinstance(value, int | float) and not isinstance(value, bool) and abs(value) < 1e300:
             parent[key] = value * 10.0 ** rng.randint(-12, 12) if value else rng.choice((1e-9, 1e9))
         elif kind < 0.6:
             del parent[key]
