@@ -1,14 +1,15 @@
 """Every results table as a CSV file, for spreadsheets and for checking by hand.
 
 One file per table, named ``<stem>-<table>.csv``; the first row is the header, with the unit in
-each column name (``period_s``, ``mass_t``). Numbers are written at full precision (Python's
-shortest exact repr) so a spreadsheet sees exactly what Poise computed; an undefined figure is an
-empty cell. Qt-free.
+each column name (``period_s``, ``mass_t``). Numbers carry ten significant figures (far more than
+the model knows) and a figure below 1e-12 of its column's largest, which is rounding noise, is
+written as 0; an undefined figure is an empty cell. Qt-free.
 """
 
 from __future__ import annotations
 
 import csv
+import math
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -212,20 +213,39 @@ def results_tables(results: Results) -> tuple[Table, ...]:
     )
 
 
-def _text(cell: Cell) -> str:
+SIGNIFICANT = 10
+"""Significant figures of a written number: far beyond what the model knows, free of float noise."""
+NOISE = 1e-12
+"""A figure smaller than this share of its column's largest is rounding noise and written as 0."""
+
+
+def _text(cell: Cell, scale: float) -> str:
     if cell is None:
         return ""
     if isinstance(cell, float):
-        return repr(cell)
+        if math.isfinite(cell) and abs(cell) <= NOISE * scale:
+            return "0"
+        return f"{cell:.{SIGNIFICANT}g}"
     return str(cell)
+
+
+def _column_scales(table: Table) -> list[float]:
+    """The largest finite magnitude of each column (0 for a column without numbers)."""
+    scales = [0.0] * len(table.header)
+    for row in table.rows:
+        for i, cell in enumerate(row):
+            if isinstance(cell, float) and math.isfinite(cell):
+                scales[i] = max(scales[i], abs(cell))
+    return scales
 
 
 def write_table(table: Table, path: Path) -> None:
     """Write one table; a cell that is None or NaN is left empty."""
+    scales = _column_scales(table)
     with path.open("w", newline="", encoding="utf-8") as stream:
         writer = csv.writer(stream)
         writer.writerow(table.header)
-        writer.writerows([_text(c) for c in row] for row in table.rows)
+        writer.writerows([_text(c, scales[i]) for i, c in enumerate(row)] for row in table.rows)
 
 
 def export_csv(project: Project, results: Results, folder: str | Path, stem: str | None = None) -> list[Path]:
