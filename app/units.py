@@ -59,6 +59,24 @@ ACCELERATION = Quantity("g", 1.0, 3)
 SECONDS = Quantity("s", 1.0, 2)
 
 
+LENGTH_DECIMALS = 4
+"""Typed geometry is kept to 0.1 mm (the model's length tolerance): no 8.000000000000002 in files."""
+ANGLE_DECIMALS = 9
+"""Typed angles are kept to 1e-9 rad before their sine and cosine are taken."""
+
+
+def typed_coordinate(value: float) -> float:
+    """A coordinate reached by typing, rounded to the model's 0.1 mm."""
+    return round(value, LENGTH_DECIMALS) + 0.0  # + 0.0 turns -0.0 into 0.0
+
+
+def polar_point(start: tuple[float, float], length: float, degrees: float) -> tuple[float, float]:
+    """The point ``length`` from ``start`` at ``degrees`` counter-clockwise from +x, rounded to 0.1 mm
+    (so 8 m at 90° ends at exactly 8, not at 3.67e-16 beside it)."""
+    a = round(math.radians(degrees), ANGLE_DECIMALS)
+    return (typed_coordinate(start[0] + length * math.cos(a)), typed_coordinate(start[1] + length * math.sin(a)))
+
+
 def degrees_of(dx: float, dy: float) -> float:
     """Angle of the vector (dx, dy) in degrees, counter-clockwise from +x, in (-180, 180]."""
     return math.degrees(math.atan2(dy, dx))

@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import math
 from dataclasses import replace
 
 import pytest
@@ -200,3 +201,24 @@ def test_plan_points_map_to_the_cursor_position(qtbot, tmp_path):
     pos = view_point(window, 12.0, 5.0)
     x, y = window.plan_view.to_plan(QPointF(pos))
     assert abs(x - 12.0) < 2 * window.plan_view.pixel and abs(y - 5.0) < 2 * window.plan_view.pixel
+
+
+@pytest.mark.parametrize("tool, values", [("place-shear_wall", ("8", "60")), ("polygon-outline", ("8", "120"))])
+def test_typed_length_and_angle_store_no_float_noise(qtbot, tmp_path, tool, values):
+    """8 m at 60° ends at (4, 6.9282) to the model's 0.1 mm, not at 4.000000000000001."""
+    from tests.helpers import click, make_window, one_storey, settle
+
+    window = make_window(qtbot, tmp_path, one_storey() if tool.startswith("place") else Project())
+    window.drawing.set_tool(tool)
+    click(window, 10, 3)
+    QTest.keyClick(window.plan_view, values[0][0])
+    field_length, field_angle = window.tool_options.fields
+    QTest.keyClick(field_length, Qt.Key.Key_Tab)
+    QTest.keyClicks(field_angle, values[1])
+    QTest.keyClick(field_angle, Qt.Key.Key_Return)
+    settle(window)
+    project = window.document.project
+    point = project.elements[0].end if tool.startswith("place") else window.plan_view.tool.points[-1]
+    assert all(round(c, 4) == c for c in point), point
+    assert point == pytest.approx((10 + 8 * math.cos(math.radians(float(values[1]))),
+                                   3 + 8 * math.sin(math.radians(float(values[1])))), abs=1e-4)

@@ -12,7 +12,7 @@ from app.commands import add_opening, set_outline
 from app.document import ProjectDocument
 from app.tools.base import PlanEvent, Tool
 from app.tools.temporary import Handles, RubberPath
-from app.units import degrees_of
+from app.units import degrees_of, polar_point
 from core.errors import ModelError
 from core.model import Point, Ring
 
@@ -151,8 +151,7 @@ class PolygonTool(Tool):
             cursor = self._cursor or last
             dx, dy = cursor[0] - last[0], cursor[1] - last[1]
             angle = degrees_of(dx, dy) if (dx or dy) else 0.0
-        a = math.radians(angle)
-        point = (last[0] + length * math.cos(a), last[1] + length * math.sin(a))
+        point = polar_point(last, length, angle)
         if self._closes_at(point):
             self.close()
         else:

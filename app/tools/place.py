@@ -15,7 +15,7 @@ from PySide6.QtGui import QKeyEvent
 from app.commands import add_elements, new_element
 from app.kinds import AppKindSpec
 from app.tools.base import PlanEvent, Tool, dragged
-from app.units import degrees_of
+from app.units import degrees_of, polar_point
 from core.model import Point, Project
 
 MIN_LENGTH = 0.05
@@ -130,8 +130,7 @@ class PlaceElementTool(Tool):
             end = self._end or self._start
             dx, dy = end[0] - self._start[0], end[1] - self._start[1]
             angle = degrees_of(dx, dy) if (dx or dy) else 0.0
-        a = math.radians(angle)
-        self._commit((self._start[0] + length * math.cos(a), self._start[1] + length * math.sin(a)))
+        self._commit(polar_point(self._start, length, angle))
         return None
 
     def cancel(self) -> None:

@@ -9,6 +9,7 @@ from PySide6.QtGui import QKeyEvent
 from app.tools.base import PlanEvent, Tool, dragged
 from app.tools.outline import OUTLINE, commit_shape
 from app.tools.temporary import RubberPath
+from app.units import typed_coordinate
 from core.model import Point
 
 
@@ -100,5 +101,5 @@ class RectangleTool(Tool):
         width, depth = values[0], values[1]
         if not width or not depth:
             return "type a width and a depth, both non-zero"
-        self._finish((self._first[0] + width, self._first[1] + depth))
+        self._finish((typed_coordinate(self._first[0] + width), typed_coordinate(self._first[1] + depth)))
         return None
