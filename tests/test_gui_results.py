@@ -68,3 +68,26 @@ def test_the_worst_verdict_is_the_one_nearest_failing():
     assert worst(radii).storey == 2
     mixed = [verdict(0.9, 1.0, Status.FAIL, 1), verdict(0.7, 1.0, Status.FAIL, 2), verdict(1.2, 1.0, Status.PASS, 3)]
     assert worst(mixed).storey == 2
+
+
+def test_forces_tab_shows_base_shear_and_storey_forces(window):
+    tables = window.tables
+    lateral = window.document.results.lateral
+    assert "Storey forces" in [tables.tabs.tabText(i) for i in range(tables.tabs.count())]
+    rows = tables.forces.rows_model.rows
+    headers = tables.forces.rows_model.headers
+    x = lateral.load("x")
+    level_rows = [r for r in rows if r[0].isdigit()]
+    assert len(level_rows) == len(window.document.results.floors)
+    fx = headers.index("F x, kN")
+    assert sum(float(r[fx]) for r in level_rows) == pytest.approx(x.base_shear, rel=1e-3)
+    base = next(r for r in rows if r[1] == "base shear")
+    assert float(base[headers.index("V x, kN")]) == pytest.approx(x.base_shear, rel=1e-3)
+
+
+def test_element_shares_tab_says_shares_are_envelopes(window):
+    tables = window.tables
+    tables.tabs.setCurrentWidget(tables.elements)
+    assert "envelope" in tables.tab_note.text() and "100 %" in tables.tab_note.text()
+    tables.tabs.setCurrentWidget(tables.storeys)
+    assert "100 %" not in tables.tab_note.text()

@@ -115,6 +115,33 @@ def storeys_table(results: Results) -> tuple[list[str], list[list[str]]]:
     return headers, rows
 
 
+def forces_table(results: Results) -> tuple[list[str], list[list[str]]]:
+    """The static storey forces and storey shears of each direction, top floor first, then the
+    base shear (the shear of the lowest storey)."""
+    lateral = results.lateral
+    x, y = lateral.load("x"), lateral.load("y")
+    headers = ["Level", "Name", "F x, kN", "F y, kN", "V x, kN", "V y, kN"]
+    rows = [
+        [str(f.level), f.name, fmt_number(float(x.storey_forces[i]), 1), fmt_number(float(y.storey_forces[i]), 1),
+         fmt_number(float(x.storey_shears[i]), 1), fmt_number(float(y.storey_shears[i]), 1)]
+        for i, f in reversed(list(enumerate(results.floors)))
+    ]
+    rows.append(["", "base shear", "", "", fmt_number(x.base_shear, 1), fmt_number(y.base_shear, 1)])
+    return headers, rows
+
+
+TAB_NOTES = {
+    "Storeys": "Design drift: the elastic drift times the code's amplification (q_d, or C_d/I_e), over the "
+               "storey height; δmax/δavg: the torsion ratio.",
+    "Modes": "Mass ratios of each mode and their running sums.",
+    "Storey forces": "Static storey forces F and storey shears V of the equivalent lateral load in each "
+                     "direction; the last row is the base shear.",
+    "Element shares": "Shears and shares are envelopes over the load cases (each the largest of any case), "
+                      "so the shares of one storey may sum to more than 100 %.",
+}
+"""The line above the tables that says what the current tab's figures are."""
+
+
 def elements_table(results: Results) -> tuple[list[str], list[list[str]]]:
     headers = ["Element", "Storey", "Shear, kN", "Share %", "Largest brace force, kN", "Base moment, kN·m"]
     rows = []
@@ -228,9 +255,16 @@ class TablesPanel(QWidget):
         self.document = document
         self.tabs = QTabWidget()
         self.modes, self.storeys, self.elements = ResultsTable(), ResultsTable(), ResultsTable()
+        self.forces = ResultsTable()
         self.tabs.addTab(self.storeys, "Storeys")
         self.tabs.addTab(self.modes, "Modes")
+        self.tabs.addTab(self.forces, "Storey forces")
         self.tabs.addTab(self.elements, "Element shares")
+        self.tab_note = QLabel()
+        self.tab_note.setWordWrap(True)
+        self.tab_note.setStyleSheet("font-size: 8pt; padding: 1px 4px;")
+        self.tabs.currentChanged.connect(self._show_tab_note)
+        self._show_tab_note()
         copy = QPushButton("Copy table")
         copy.setToolTip("Copy the selected rows (or the whole table) as tab-separated text")
         copy.clicked.connect(lambda: self.tabs.currentWidget().copy())
@@ -242,6 +276,7 @@ class TablesPanel(QWidget):
         bar.addWidget(copy)
         layout = QVBoxLayout(self)
         layout.setContentsMargins(2, 2, 2, 2)
+        layout.addWidget(self.tab_note)
         layout.addWidget(self.tabs, 1)
         layout.addLayout(bar)
         self.modes.row_clicked.connect(lambda row: document.select_mode(row + 1))
@@ -271,10 +306,14 @@ class TablesPanel(QWidget):
         for table, contents in (
             (self.modes, modes_table),
             (self.storeys, storeys_table),
+            (self.forces, forces_table),
             (self.elements, elements_table),
         ):
             if table.rows_model.update_rows(*(contents(results) if results is not None else ([], []))):
                 table.resizeColumnsToContents()
+
+    def _show_tab_note(self, *_: object) -> None:
+        self.tab_note.setText(TAB_NOTES.get(self.tabs.tabText(self.tabs.currentIndex()), ""))
 
     def _element_clicked(self, row: int) -> None:
         element_id, storey = self.elements.rows_model.rows[row][:2]
