@@ -56,8 +56,14 @@ def test_element_outside_the_outline():
 
 
 def test_an_element_on_the_outline_edge_is_inside():
-    # W1 and W2 lie on the short edges, W3 on the long edge: no diagnostic.
-    analyse(building(stable_walls()))
+    # W1 and W2 lie on the short edges, W3 on the long edge: on the boundary is within the floor.
+    results = analyse(building(stable_walls()))
+    assert [d.element for d in results.lateral.elements] == ["W1", "W2", "W3"]
+    # A millimetre further out, the same wall leaves the outline and is named.
+    shifted = (*stable_walls()[:2], Element("W3", (6.0, -0.001), (14.0, -0.001), 0, 1, WALL))
+    error = analysis_error(building(shifted))
+    assert error.message.startswith("element W3 leaves the outline of level 'L1'")
+    assert error.elements == ("W3",)
 
 
 def test_storey_without_elements():
