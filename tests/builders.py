@@ -1,4 +1,4 @@
-"""Small invented buildings that tests build in code (units kN, m, t, s)."""
+"""Small invented buildings that tests build in code (units kN, m, t, s), and the numbers of a JSON tree."""
 
 from __future__ import annotations
 
@@ -37,3 +37,19 @@ def spring_building(storey_stiffness: list[float], floor_masses: list[float], si
     }
     elements = tuple(Element(i, a, b, 0, n, Spring(half)) for i, (a, b) in lines.items())
     return Project(name="spring building", levels=levels, elements=elements)
+
+
+def numbers(value: object, path: str = "") -> dict[str, float]:
+    """Every number in a JSON tree, keyed by its path (strings and text are not compared)."""
+    found: dict[str, float] = {}
+    if isinstance(value, dict):
+        for key, item in value.items():
+            found.update(numbers(item, f"{path}.{key}"))
+    elif isinstance(value, list):
+        for index, item in enumerate(value):
+            found.update(numbers(item, f"{path}[{index}]"))
+    elif isinstance(value, bool) or value is None:
+        pass
+    elif isinstance(value, int | float):
+        found[path] = float(value)
+    return found

@@ -23,7 +23,7 @@ from core.errors import AnalysisError
 from core.model import BracedFrame, Element, Project, ShearWall
 from core.report.summary import results_to_dict
 from core.results import Results
-from tests.test_results_baseline import numbers
+from tests.builders import numbers
 
 TOLERANCE = 1e-9
 

@@ -17,24 +17,9 @@ from app.resources import sample_projects
 from core.analysis import analyse
 from core.model.fileio import load_project
 from core.report.summary import results_to_dict
+from tests.builders import numbers
 
 BASELINE = Path(__file__).parent / "fixtures" / "baseline"
-
-
-def numbers(value: object, path: str = "") -> dict[str, float]:
-    """Every number in a JSON tree, keyed by its path (strings and text are not compared)."""
-    found: dict[str, float] = {}
-    if isinstance(value, dict):
-        for key, item in value.items():
-            found.update(numbers(item, f"{path}.{key}"))
-    elif isinstance(value, list):
-        for index, item in enumerate(value):
-            found.update(numbers(item, f"{path}[{index}]"))
-    elif isinstance(value, bool) or value is None:
-        pass
-    elif isinstance(value, int | float):
-        found[path] = float(value)
-    return found
 
 
 @pytest.mark.parametrize("sample", sample_projects(), ids=lambda p: p.stem)
