@@ -61,3 +61,16 @@ def test_core_imports_and_analyses_with_qt_unimportable():
     )
     assert run.returncode == 0, run.stderr
     assert int(run.stdout.split()[0]) > 30
+
+
+def test_core_type_checks_strictly(tmp_path):
+    """mypy --strict over core/ (settings in pyproject.toml) finds nothing."""
+    run = subprocess.run(
+        [sys.executable, "-m", "mypy", "--cache-dir", str(tmp_path / "mypy"), "--no-error-summary"],
+        capture_output=True,
+        text=True,
+        cwd=REPO,
+        env={**os.environ, "PYTHONPATH": str(REPO)},
+        timeout=600,
+    )
+    assert run.returncode == 0, run.stdout[-3000:] + run.stderr[-1000:]

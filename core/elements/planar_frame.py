@@ -131,7 +131,8 @@ class PlanarFrame:
         global_k = transform.transpose(0, 2, 1) @ force_matrix
         size = total + 1
         flat = (dofs[:, :, None] * size + dofs[:, None, :]).ravel()
-        K = np.bincount(flat, weights=global_k.ravel(), minlength=size * size).reshape(size, size)
+        K = np.asarray(np.bincount(flat, weights=global_k.ravel(), minlength=size * size), dtype=np.float64)
+        K = K.reshape(size, size)
         stiffness, recovery = _condense(K[:total, :total], n)
 
         lower_is_end = floor[end] < floor[start]
@@ -232,7 +233,8 @@ class CondensedFrame:
         For any member the axial force, tension positive, is the entry at index 3.
         """
         q = np.concatenate((displacements, self.recovery @ displacements, [0.0]))
-        return np.einsum("mij,mj->mi", self.force_matrix, q[self.member_dofs])
+        forces: FloatArray = np.einsum("mij,mj->mi", self.force_matrix, q[self.member_dofs])
+        return forces
 
     def storey_resultants(self, forces: FloatArray) -> tuple[FloatArray, FloatArray]:
         """Storey shear (kN) and overturning moment at each storey's base (kN·m) from end forces.
@@ -252,6 +254,8 @@ class CondensedFrame:
         fx = c * axial - s * transverse
         fz = s * axial + c * transverse
         storey = self.storey[crossing]
-        shear = -np.bincount(storey, weights=fx, minlength=n)
-        overturning = np.bincount(storey, weights=self.lower_x[crossing] * fz + moment, minlength=n)
+        shear = -np.asarray(np.bincount(storey, weights=fx, minlength=n), dtype=np.float64)
+        overturning = np.asarray(
+            np.bincount(storey, weights=self.lower_x[crossing] * fz + moment, minlength=n), dtype=np.float64
+        )
         return shear, overturning

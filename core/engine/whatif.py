@@ -208,7 +208,8 @@ def _worst_torsion(
     for a, d in enumerate(DIRECTIONS):
         rows = [i for i, c in enumerate(cases) if c.direction == d]
         if rows:
-            worst[:, a] = end_ratio(storey_drifts(unit[:, rows], centres, ends[d], d)).max(axis=(1, 2))
+            drifts = storey_drifts(np.asarray(unit[:, rows], dtype=np.float64), centres, ends[d], d)
+            worst[:, a] = end_ratio(drifts).max(axis=(1, 2))
     return worst
 
 

@@ -60,7 +60,7 @@ def element_storey_stiffness(element_k: FloatArray, pattern: FloatArray) -> Floa
 def element_pattern(element: Element, patterns: FloatArray) -> FloatArray:
     """The pattern (x or y, whichever axis the element's line is closer to) on its floors."""
     c, s = element.direction
-    pattern = patterns[0] if abs(c) >= abs(s) else patterns[1]
+    pattern: FloatArray = patterns[0] if abs(c) >= abs(s) else patterns[1]
     return pattern[element.bottom : element.top]
 
 

@@ -260,7 +260,7 @@ class ElementDemands(Sequence[ElementDemand]):
     def __len__(self) -> int:
         return len(self.demands)
 
-    def __getitem__(self, index):  # type: ignore[no-untyped-def, override]
+    def __getitem__(self, index):  # type: ignore[no-untyped-def]
         return self.demands[index]
 
     def __iter__(self) -> Iterator[ElementDemand]:
@@ -301,7 +301,8 @@ def element_demands(
     def along(floors_at: FloatArray) -> FloatArray:
         c, s, x, y = lines.T
         a = np.column_stack([c, s, s * (x - centres[floors_at, 0]) - c * (y - centres[floors_at, 1])])
-        return np.einsum("rk,rkc->rc", a, u[floors_at])
+        moved: FloatArray = np.einsum("rk,rkc->rc", a, u[floors_at])
+        return moved
 
     line = along(floor)
     above_base = bottom >= 0
@@ -389,7 +390,13 @@ def brace_influence(properties: BracedFrame, length: float, heights: tuple[float
     """(storeys, braces, floors): brace axial forces per unit displacement of each floor, built
     once per frame shape (forces are linear in the displacements) so a drag costs one product."""
     n = len(heights)
-    columns = [member_forces(properties, length, heights, np.eye(n)[i]).brace_axial for i in range(n)]
+    columns = [_braces(member_forces(properties, length, heights, np.eye(n)[i]).brace_axial) for i in range(n)]
     influence = np.stack(columns, axis=-1)
     influence.setflags(write=False)
     return influence
+
+
+def _braces(forces: FloatArray | None) -> FloatArray:
+    """A braced frame's brace forces (always present for that kind)."""
+    assert forces is not None
+    return forces

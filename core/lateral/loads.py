@@ -17,9 +17,9 @@ import numpy as np
 from core.arrays import FloatArray, frozen_array
 from core.lateral.cases import Direction, LoadCase
 from core.lateral.records import StaticLoad
-from core.model import Asce7Spectrum, Eurocode8Spectrum, LoadMethod, Project, Settings, SystemType
+from core.model import GRAVITY, Asce7Spectrum, Eurocode8Spectrum, LoadMethod, Project, Settings, SystemType
 from core.model.geometry import bounding_size
-from core.solve.assembly import GRAVITY, FloorMass
+from core.solve.assembly import FloorMass
 
 
 @dataclass(frozen=True)
@@ -159,13 +159,13 @@ ASCE7_CU_TABLE: tuple[tuple[float, float], ...] = (
 
 def approximate_period_en1998(height: float, system: SystemType) -> float:
     """T_1 = C_t·H^(3/4) (EN 1998-1 §4.3.3.2.2(3) Eq. 4.6; meant for H ≤ 40 m)."""
-    return EN1998_PERIOD_COEFFICIENT[system] * height**0.75
+    return float(EN1998_PERIOD_COEFFICIENT[system] * height**0.75)
 
 
 def approximate_period_asce7(height: float, system: SystemType) -> float:
     """T_a = C_t·h_n^x (ASCE 7-16 §12.8.2.1 Eq. 12.8-7, Table 12.8-2 in SI units)."""
     ct, x = ASCE7_PERIOD_COEFFICIENT[system]
-    return ct * height**x
+    return float(ct * height**x)
 
 
 def period_cap_coefficient(sd1: float) -> float:
@@ -188,7 +188,8 @@ def vertical_distribution(
     total = weights.sum()
     if total <= 0.0:
         return np.zeros_like(weights)
-    return base_shear * weights / total
+    forces: FloatArray = base_shear * weights / total
+    return forces
 
 
 def static_load(

@@ -110,7 +110,11 @@ def rotate_elements(project: Project, ids: Iterable[str], quarter_turns: int = 1
 
 def set_element_end(element: Element, which: str, point: Point) -> Element:
     """The element with its ``start`` or ``end`` moved to ``point``."""
-    return dataclasses.replace(element, **{which: _point(point)})
+    if which == "start":
+        return dataclasses.replace(element, start=_point(point))
+    if which == "end":
+        return dataclasses.replace(element, end=_point(point))
+    raise ValueError(f"which must be 'start' or 'end', got {which!r}")
 
 
 def set_length_and_angle(element: Element, length: float, angle_degrees: float) -> Element:

@@ -208,7 +208,8 @@ def _decode_element(value: Any, path: str) -> Element:
     rest = {k: v for k, v in value.items() if k != "kind"}
     properties = _decode_dataclass(rest.pop("properties", {}), spec.properties, f"{path}.properties")
     fields = _decode_dataclass(rest, _ElementFields, path)
-    return _construct(Element, {**dataclasses.asdict(fields), "properties": properties}, path)
+    element: Element = _construct(Element, {**dataclasses.asdict(fields), "properties": properties}, path)
+    return element
 
 
 @dataclasses.dataclass(frozen=True)
@@ -258,7 +259,8 @@ def project_from_dict(document: Any) -> Project:
             raise ModelError(name, "expected a list")
     levels = tuple(_decode_dataclass(v, Level, f"levels[{i}]") for i, v in enumerate(levels_data))
     elements = tuple(_decode_element(v, f"elements[{i}]") for i, v in enumerate(elements_data))
-    return _construct(Project, {**texts, "settings": settings, "levels": levels, "elements": elements}, "")
+    project: Project = _construct(Project, {**texts, "settings": settings, "levels": levels, "elements": elements}, "")
+    return project
 
 
 _STRING = re.compile(r'"(?:[^"\\]|\\.)*"')

@@ -100,7 +100,7 @@ class AttachedPoints:
         return AttachedPoints(self.xy[mask], self.floor[mask], self.z[mask])
 
 
-def ring_segments(ring: Sequence[Point]) -> FloatArray:
+def ring_segments(ring: Sequence[Point] | FloatArray) -> FloatArray:
     """The closed ring's edges as segment rows: p0 p1, p1 p2, …, p(k−1) p0."""
     p = np.asarray(ring, dtype=float).reshape(-1, 2)
     out = np.empty((2 * len(p), 2))
@@ -179,7 +179,8 @@ def _storey_ends(storey: int, elevations: Sequence[float]) -> tuple[int, float, 
 def _bay_points(element: Element, bays: int) -> FloatArray:
     start, end = np.asarray(element.start, dtype=float), np.asarray(element.end, dtype=float)
     t = np.linspace(0.0, 1.0, bays + 1)[:, None]
-    return start + t * (end - start)
+    points: FloatArray = start + t * (end - start)
+    return points
 
 
 class _SegmentCollector:

@@ -35,6 +35,7 @@ from __future__ import annotations
 
 import dataclasses
 import math
+from collections.abc import Sequence
 from enum import Enum
 from typing import Any
 
@@ -193,7 +194,7 @@ def _num(value: float | None, width: int, digits: int = 2) -> str:
     return f"{value:>{width}.{digits}f}"
 
 
-def _row(first: str, cells: list[tuple[float | None, int, int]]) -> str:
+def _row(first: str, cells: Sequence[tuple[float | None, int, int]]) -> str:
     """A table row: a left-aligned label, then numbers (value, width, digits)."""
     return f"{first:<10}" + "".join(_num(v, w, d) for v, w, d in cells)
 
@@ -221,6 +222,7 @@ def format_lateral(lateral: LateralResults) -> list[str]:
             ],
         )
     )
+    cells: list[tuple[float | None, int, int]]
     for load in lateral.loads:
         cells = [
             (load.modal_period, 9, 3),

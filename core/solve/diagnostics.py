@@ -237,7 +237,7 @@ def _common_point(elements: Sequence[Element], size: float) -> FloatArray | None
     """The point all element lines pass through, if there is one (least squares, then a check)."""
     normals = np.array([(-e.direction[1], e.direction[0]) for e in elements])
     offsets = np.array([n @ np.asarray(e.start) for n, e in zip(normals, elements, strict=True)])
-    point, *_ = np.linalg.lstsq(normals, offsets, rcond=None)
+    point: FloatArray = np.linalg.lstsq(normals, offsets, rcond=None)[0]
     if np.all(np.abs(normals @ point - offsets) <= CONCURRENT_TOLERANCE * size):
         return point
     return None
