@@ -139,12 +139,13 @@ class ProjectDocument(QObject):
         """Load ``path``; raises ModelError (file unchanged, document unchanged) if it is bad."""
         self.reset(load_project(path), Path(path))
 
-    def save(self, path: Path | None = None) -> None:
-        """Save to ``path`` or the current file; raises OSError/ModelError on failure."""
+    def save(self, path: Path | None = None, overwrite_read_only: bool = False) -> None:
+        """Save to ``path`` or the current file; raises OSError (ReadOnlyFileError for a read-only
+        file unless ``overwrite_read_only``) or ModelError on failure."""
         target = Path(path) if path is not None else self.file_path
         if target is None:
             raise ValueError("no file name given")
-        save_project(self._project, target)
+        save_project(self._project, target, overwrite_read_only=overwrite_read_only)
         self.undo_stack.setClean()
         if target != self.file_path:
             self.file_path = target

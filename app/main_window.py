@@ -33,6 +33,7 @@ from app.panels.readouts import ReadoutsPanel
 from app.panels.results import TablesPanel
 from app.panels.status import StatusPanel
 from app.panels.tool_options import ToolOptions
+from app.recovery import RecoveryStore
 from app.resources import DEFAULT_SAMPLE, sample_path
 from app.tools.place import PlacementRange
 from app.view_actions import install as install_view_actions
@@ -57,9 +58,11 @@ class MainWindow(QMainWindow):
     ``views`` (fit, zoom, grid, snap), ``levels`` (level changes), the mode views and ``exchange``
     (sheet, DXF, CSV, PNG)."""
 
-    def __init__(self, settings: QSettings | None = None) -> None:
+    def __init__(self, settings: QSettings | None = None, recovery: RecoveryStore | None = None) -> None:
         super().__init__()
         self.settings = settings if settings is not None else QSettings()
+        self.recovery = recovery if recovery is not None else RecoveryStore()
+        """Where unsaved work and error copies go (the user's data folder; tests give a temp one)."""
         self.document = ProjectDocument(self)
         self.scene = PlanScene(self.document)
         self.plan_view = PlanView(self.scene)
@@ -228,6 +231,7 @@ class MainWindow(QMainWindow):
         if self.plan_view.tool is not None:
             self.plan_view.tool.cancel()
         self.save_settings()
+        self.files.close()
         event.accept()
 
     def show_caution(self) -> None:
@@ -240,10 +244,12 @@ def run(path: Path | None = None) -> int:
     app.setOrganizationName("Poise")
     app.setApplicationName("Poise")
     window = MainWindow()
-    safety_net.install(window, window.document)
-    if path is not None:
+    safety_net.install(window, window.document, window.recovery)
+    window.show()
+    if window.files.offer_recovery():
+        pass  # the recovered work is open
+    elif path is not None:
         window.files.open_file(Path(path), confirm=False)
     else:
         window.files.open_sample(sample_path(DEFAULT_SAMPLE), confirm=False)
-    window.show()
     return app.exec()

@@ -2,13 +2,13 @@
 
 Qt calls Python slots from its event loop; an exception that escapes one reaches
 ``sys.excepthook``. Poise's hook prints the traceback to standard error, writes the open project
-to a recovery file, and tells the user in a message box — the window stays open.
+to a new copy in the recovery folder (app/recovery.py; offered back on the next start), and tells
+the user in a message box — the window stays open.
 """
 
 from __future__ import annotations
 
 import sys
-import tempfile
 import traceback
 from pathlib import Path
 from types import TracebackType
@@ -16,37 +16,26 @@ from types import TracebackType
 from PySide6.QtWidgets import QMessageBox, QWidget
 
 from app.document import ProjectDocument
-from core.model.fileio import save_project
-
-RECOVERY_SUFFIX = ".recovered.poise"
+from app.recovery import RecoveryStore
 
 
-def recovery_path(document: ProjectDocument) -> Path:
-    """Beside the open file (``office.poise`` → ``office.recovered.poise``), else in the temp folder."""
-    if document.file_path is not None:
-        return document.file_path.with_name(document.file_path.stem + RECOVERY_SUFFIX)
-    return Path(tempfile.gettempdir()) / f"untitled{RECOVERY_SUFFIX}"
+def save_recovery(document: ProjectDocument, store: RecoveryStore) -> Path | None:
+    """Write the project's last committed state to a new copy in the recovery folder (offered on
+    the next start); None if even that fails."""
+    try:
+        return store.save_error_copy(document.project, document.file_path).copy
+    except OSError:
+        return None
 
 
-def save_recovery(document: ProjectDocument) -> Path | None:
-    """Write the project's last committed state to its recovery file; None if even that fails."""
-    for path in (recovery_path(document), Path(tempfile.gettempdir()) / f"poise{RECOVERY_SUFFIX}"):
-        try:
-            save_project(document.project, path)
-            return path
-        except OSError:
-            continue
-    return None
-
-
-def install(window: QWidget, document: ProjectDocument) -> None:
+def install(window: QWidget, document: ProjectDocument, store: RecoveryStore) -> None:
     """Route uncaught exceptions to a message box over ``window`` after saving a recovery copy."""
 
     def hook(kind: type[BaseException], error: BaseException, trace: TracebackType | None) -> None:
         traceback.print_exception(kind, error, trace, file=sys.stderr)
         if issubclass(kind, KeyboardInterrupt):
             return
-        saved = save_recovery(document)
+        saved = save_recovery(document, store)
         where = f"A copy of your project was saved to {saved}." if saved else "No recovery copy could be written."
         QMessageBox.critical(
             window,

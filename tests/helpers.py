@@ -10,15 +10,17 @@ from PySide6.QtCore import QPoint, QPointF, QSettings, Qt
 from PySide6.QtTest import QTest
 
 from app.main_window import MainWindow
+from app.recovery import RecoveryStore
 from core.model import BracedFrame, Element, Level, Project
 
 RECTANGLE_36_18 = ((0.0, 0.0), (36.0, 0.0), (36.0, 18.0), (0.0, 18.0))
 
 
 def make_window(qtbot, tmp_path: Path, project: Project | None = None) -> MainWindow:
-    """A shown main window with its own settings file; closing it never asks a question."""
+    """A shown main window with its own settings file and recovery folder; closing it never asks a
+    question."""
     settings = QSettings(str(tmp_path / "poise-test.ini"), QSettings.Format.IniFormat)
-    window = MainWindow(settings=settings)
+    window = MainWindow(settings=settings, recovery=RecoveryStore(tmp_path / "recovery"))
     window.files.ask_unsaved = lambda: "discard"
     qtbot.addWidget(window)
     window.resize(1400, 900)

@@ -34,6 +34,7 @@ def test_save_then_reopen_gives_the_same_project(window, tmp_path, qtbot):
     assert window.files.save_as(path)
     assert not window.isWindowModified() and "box.poise" in window.windowTitle()
     assert load_project(path) == edited
+    window.close()  # it holds the file's lock while open (tests/test_gui_recovery.py)
     other = make_window(qtbot, tmp_path / "..", None)
     assert other.files.open_file(path, confirm=False)
     assert other.document.project == edited

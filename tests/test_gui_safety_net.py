@@ -19,12 +19,15 @@ def test_an_unexpected_error_saves_the_work_and_keeps_the_window(qtbot, tmp_path
     shown = []
     monkeypatch.setattr(QMessageBox, "critical", lambda parent, title, text: shown.append(text))
     monkeypatch.setattr(sys, "excepthook", sys.excepthook)  # restored after the test
-    safety_net.install(window, window.document)
-    try:
-        raise RuntimeError("a slot went wrong")
-    except RuntimeError:
-        sys.excepthook(*sys.exc_info())
-    recovered = tmp_path / "office.recovered.poise"
-    assert load_project(recovered) == window.document.project
-    assert len(shown) == 1 and "a slot went wrong" in shown[0] and str(recovered) in shown[0]
+    safety_net.install(window, window.document, window.recovery)
+    for _ in range(2):
+        try:
+            raise RuntimeError("a slot went wrong")
+        except RuntimeError:
+            sys.excepthook(*sys.exc_info())
+    copies = sorted(window.recovery.folder.glob("office.recovered-*.poise"))
+    assert len(copies) == 2, "a second error never overwrites the first copy"
+    assert all(load_project(c) == window.document.project for c in copies)
+    assert not (tmp_path / "office.recovered.poise").exists(), "never beside the user's file"
+    assert len(shown) == 2 and "a slot went wrong" in shown[0] and any(str(c) in shown[0] for c in copies)
     assert window.isVisible()

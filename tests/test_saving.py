@@ -106,3 +106,14 @@ def test_saved_text_is_the_dumped_text(tmp_path):
     path = tmp_path / "a.poise"
     save_project(Project(name="x"), path)
     assert path.read_text(encoding="utf-8") == dumps(Project(name="x"))
+
+
+def test_a_backup_left_linked_to_the_file_by_a_crash_leaves_no_temporary(tmp_path):
+    """A save killed after linking the backup leaves file and backup as one inode; the next save
+    must still end with no temporary (rename between two links of one file does nothing)."""
+    path = tmp_path / "a.poise"
+    save_project(Project(name="one"), path)
+    os.link(path, backup_path(path))
+    save_project(Project(name="two"), path)
+    assert strays(tmp_path) == []
+    assert load_project(backup_path(path)).name == "one"

@@ -153,7 +153,8 @@ def _modal_period(modes: Sequence[Mode], axis: int) -> float:
 def _storey_stiffness(
     unit: FloatArray, centres: FloatArray, pattern: FloatArray, direction: str
 ) -> FloatArray:
-    """Storey shear over storey drift at the mass centre under a centred unit pattern."""
+    """Storey shear over storey drift at the mass centre under a centred unit pattern (NaN where
+    the storey does not drift with the load; the regularity ratios then do not apply)."""
     drifts = storey_drifts(unit, centres, centres[:, None, :], direction)[:, 0]
     shears = pattern[::-1].cumsum()[::-1]
     with np.errstate(divide="ignore", invalid="ignore"):

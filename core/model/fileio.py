@@ -432,9 +432,10 @@ def _keep_backup(target: Path, prefix: str) -> None:
             with temporary.open("rb+") as stream:
                 os.fsync(stream.fileno())
         os.replace(temporary, backup_path(target))
-    except BaseException:
+    finally:
+        # rename() between two links of one file (a crash left the backup linked to the file) does
+        # nothing and keeps the temporary name: remove it
         temporary.unlink(missing_ok=True)
-        raise
 
 
 def _sync_folder(folder: Path) -> None:
