@@ -16,6 +16,7 @@ import time
 from dataclasses import dataclass
 from pathlib import Path
 
+import shiboken6
 from PySide6.QtCore import QLockFile, QObject, QStandardPaths, QTimer
 
 from app.document import ProjectDocument
@@ -166,13 +167,17 @@ class Autosave(QObject):
         document.undo_stack.cleanChanged.connect(self._clean_changed)
         document.file_path_changed.connect(self._clean_changed)
 
+    def _alive(self) -> bool:
+        """False while the window is being torn down (its undo stack already deleted)."""
+        return shiboken6.isValid(self.document.undo_stack)
+
     def _edited(self) -> None:
         self._pending += 1
         if self._pending >= self.edits:
             self.write_now()
 
     def _clean_changed(self) -> None:
-        if not self.document.is_modified:
+        if self._alive() and not self.document.is_modified:
             self.store.discard()
             self._pending = 0
             self._written_index = None
@@ -180,6 +185,8 @@ class Autosave(QObject):
     def write_now(self) -> None:
         """Copy the unsaved work now, if there is any not yet copied."""
         document = self.document
+        if not self._alive():
+            return
         index = document.undo_stack.index()
         if not document.is_modified or index == self._written_index:
             return

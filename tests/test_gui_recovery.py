@@ -8,7 +8,7 @@ import os
 
 from app.recovery import RecoveryStore
 from core.model.fileio import load_project, save_project
-from tests.test_gui_support import balanced_box, make_window
+from tests.helpers import balanced_box, make_window
 from tests.test_recovery_store import crash
 
 
