@@ -10,7 +10,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from core.arrays import FloatArray, frozen_array
+from core.arrays import FloatArray, frozen_array, sums_from_top
 from core.elements.forces import ElementForces
 from core.errors import ModelError
 from core.model import Spring
@@ -27,7 +27,7 @@ class SpringChain:
     def forces(self, displacements: FloatArray) -> ElementForces:
         shear = self.storey_stiffness * np.diff(displacements, prepend=0.0)
         # The moment grows by V_k h_k down storey k: M_i = Σ_(k ≥ i) V_k h_k.
-        overturning = np.cumsum((shear * self.storey_heights)[::-1])[::-1]
+        overturning = sums_from_top(shear * self.storey_heights)
         return ElementForces(storey_shear=frozen_array(shear), overturning_moment=frozen_array(overturning))
 
 

@@ -19,9 +19,9 @@ from dataclasses import dataclass
 import numpy as np
 from scipy.linalg import cho_factor, cho_solve
 
-from core.arrays import FloatArray
+from core.arrays import FloatArray, sums_from_top
 from core.model import Element, Project
-from core.solve.assembly import FloorMass, element_matrix
+from core.solve.assembly import FloorMass, element_matrix, line_rows
 
 RELATIVE_TOLERANCE = 1e-12
 
@@ -51,7 +51,7 @@ def element_storey_stiffness(element_k: FloatArray, pattern: FloatArray) -> Floa
     except np.linalg.LinAlgError:
         return np.zeros_like(pattern)
     drifts = np.diff(displacement, prepend=0.0)
-    shears = pattern[::-1].cumsum()[::-1]
+    shears = sums_from_top(pattern)
     with np.errstate(divide="ignore", invalid="ignore"):
         k = np.where((drifts > 0) & (shears > 0), shears / drifts, 0.0)
     return k
@@ -79,11 +79,7 @@ def storey_stiffnesses(
 def element_storey_rows(element: Element, stiffness: FloatArray, centres: FloatArray) -> FloatArray:
     """(storeys, 3, 3) one element's k_e,j·aᵀa on the storeys it spans; ``centres`` (storeys, 2)
     are the mass centres of the floors above them. The storey matrices are their sums."""
-    c, s = element.direction
-    x, y = element.start
-    a = np.empty((len(centres), 3))
-    a[:, 0], a[:, 1] = c, s
-    a[:, 2] = s * (x - centres[:, 0]) - c * (y - centres[:, 1])  # design.md's a
+    a = line_rows(element, centres)  # design.md's a
     return stiffness[:, None, None] * a[:, :, None] * a[:, None, :]
 
 

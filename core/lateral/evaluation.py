@@ -15,7 +15,7 @@ from functools import lru_cache
 import numpy as np
 from scipy.linalg import cho_factor, cho_solve
 
-from core.arrays import FloatArray, frozen_array
+from core.arrays import FloatArray, frozen_array, sums_from_top
 from core.elements import member_forces
 from core.lateral.cases import DIRECTIONS
 from core.lateral.centres import StoreyStiffness, no_twist_offsets, storey_properties, storey_stiffnesses
@@ -156,7 +156,7 @@ def _storey_stiffness(
     """Storey shear over storey drift at the mass centre under a centred unit pattern (NaN where
     the storey does not drift with the load; the regularity ratios then do not apply)."""
     drifts = storey_drifts(unit, centres, centres[:, None, :], direction)[:, 0]
-    shears = pattern[::-1].cumsum()[::-1]
+    shears = sums_from_top(pattern)
     with np.errstate(divide="ignore", invalid="ignore"):
         return np.where(drifts > 0, shears / drifts, np.nan)
 
@@ -345,7 +345,7 @@ def _span_group_demands(
     ``lines`` (G, n, cases), their floors' displacements along their lines relative to their bottom."""
     n = matrices.shape[1]
     floor_forces = matrices @ lines  # (G, n, cases): one product per element
-    shears = np.ascontiguousarray(floor_forces[:, ::-1].cumsum(axis=1)[:, ::-1].transpose(0, 2, 1))  # (G, cases, n)
+    shears = np.ascontiguousarray(sums_from_top(floor_forces, axis=1).transpose(0, 2, 1))  # (G, cases, n)
     directions = np.array([e.direction for e in elements], dtype=float)
     axis = np.array([0 if r.case.direction == "x" else 1 for r in cases], dtype=int)
     along = directions[:, axis]  # (G, cases)

@@ -13,7 +13,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from enum import StrEnum
 
-from core.arrays import FloatArray
+from core.arrays import FloatArray, sums_from_top
 from core.lateral.cases import DIRECTIONS, Direction, LoadCase
 from core.model import Point
 
@@ -124,7 +124,7 @@ class StaticLoad:
     @property
     def storey_shears(self) -> FloatArray:
         """(N,) shear in each storey: the sum of the floor forces at and above it, kN."""
-        return self.storey_forces[::-1].cumsum()[::-1]
+        return sums_from_top(self.storey_forces)
 
 
 @dataclass(frozen=True)

@@ -14,7 +14,7 @@ from functools import lru_cache
 
 import numpy as np
 
-from core.arrays import FloatArray, frozen_array
+from core.arrays import FloatArray, frozen_array, sums_from_top
 from core.lateral.cases import Direction, LoadCase
 from core.lateral.records import CaseResult, ModeOrder
 from core.model import LoadMethod, Point, Project, Ring, Settings
@@ -137,7 +137,7 @@ def case_results(
             "forces": forces,
             "application_points": centres + offsets[index],
             "displacements": scale[:, None, None] * U,
-            "storey_shears": forces[:, ::-1].cumsum(axis=1)[:, ::-1],
+            "storey_shears": sums_from_top(forces, axis=1),
             "drifts": scale[:, None] * drifts,
             "end_drifts": scale[:, None, None] * end_drifts,
             "torsion_ratio": ratios,

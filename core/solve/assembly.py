@@ -70,12 +70,21 @@ def floor_mass(index: int, level: Level, elevation: float) -> FloorMass:
     return FloorMass(index, level.name, elevation, props.area, total, (cx, cy), float(inertia))
 
 
-def line_vector(element: Element, floor: FloorMass) -> FloatArray:
-    """The row a that turns floor DOFs [u_x, u_y, θ] into displacement along the element's line."""
+def line_rows(element: Element, centres: FloatArray) -> FloatArray:
+    """(m, 3) the rows a that turn the DOFs [u_x, u_y, θ] of floors with mass centres ``centres``
+    (m, 2) into displacement along the element's line: a = [c, s, s(x − x_m) − c(y − y_m)]."""
     c, s = element.direction
     x, y = element.start
-    xm, ym = floor.centre
-    return np.array([c, s, s * (x - xm) - c * (y - ym)])
+    a = np.empty((len(centres), 3))
+    a[:, 0], a[:, 1] = c, s
+    a[:, 2] = s * (x - centres[:, 0]) - c * (y - centres[:, 1])
+    return a
+
+
+def line_vector(element: Element, floor: FloorMass) -> FloatArray:
+    """The row a that turns floor DOFs [u_x, u_y, θ] into displacement along the element's line."""
+    row: FloatArray = line_rows(element, np.array([floor.centre], dtype=float))[0]
+    return row
 
 
 def element_transformation(element: Element, floors: tuple[FloorMass, ...]) -> FloatArray:
@@ -123,11 +132,7 @@ def element_block(element: Element, k: FloatArray, centres: FloatArray) -> Float
     ``centres`` (m, 2) are the mass centres of those floors. With the line rows a_p of the floors
     and k̂ = Lᵀ k L (L = [−1 | I] takes the bottom floor's displacement off), the block is
     k̂_pq·a_p a_qᵀ: no dense T is formed."""
-    c, s = element.direction
-    x, y = element.start
-    a = np.empty((len(centres), 3))
-    a[:, 0], a[:, 1] = c, s
-    a[:, 2] = s * (x - centres[:, 0]) - c * (y - centres[:, 1])
+    a = line_rows(element, centres)
     if element.bottom > 0:
         n = k.shape[0]
         k_hat = np.empty((n + 1, n + 1))
