@@ -27,27 +27,21 @@ import numpy as np
 
 from core.arrays import FloatArray, frozen_array
 from core.elements.forces import ElementForces
-from core.elements.planar_frame import CondensedFrame, IntArray, PlanarFrame
+from core.elements.planar_frame import FrameModel, IntArray, PlanarFrame
 from core.model import BracedFrame, BracePattern
 
 
 @dataclass(frozen=True)
-class BracedFrameModel:
+class BracedFrameModel(FrameModel):
     """The condensed planar braced frame and the member numbers to report forces by."""
 
-    frame: CondensedFrame
     braces: IntArray
     """(n, braces per storey) member numbers, ordered as in :attr:`ElementForces.brace_axial`."""
     columns: IntArray
     """(n, bays + 1) member numbers."""
 
-    @property
-    def stiffness(self) -> FloatArray:
-        return self.frame.stiffness
-
     def forces(self, displacements: FloatArray) -> ElementForces:
-        end_forces = self.frame.end_forces(displacements)
-        shear, overturning = self.frame.storey_resultants(end_forces)
+        end_forces, shear, overturning = self.resultants(displacements)
         axial = end_forces[:, 3]
         return ElementForces(
             storey_shear=frozen_array(shear),
@@ -63,7 +57,7 @@ def condense(frame: BracedFrame, length: float, storey_heights: tuple[float, ...
     width = length / bays
     E = frame.modulus
     model = PlanarFrame(storey_heights)
-    grid = [[model.add_node(k * width, level) for k in range(bays + 1)] for level in range(n + 1)]
+    grid = model.add_grid(length, bays)
 
     columns = [
         [model.add_truss(grid[i][k], grid[i + 1][k], frame.column_area * E) for k in range(bays + 1)]

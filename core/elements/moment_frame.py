@@ -14,27 +14,21 @@ import numpy as np
 
 from core.arrays import FloatArray, frozen_array
 from core.elements.forces import ElementForces
-from core.elements.planar_frame import CondensedFrame, IntArray, PlanarFrame
+from core.elements.planar_frame import FrameModel, IntArray, PlanarFrame
 from core.model import MomentFrame
 
 
 @dataclass(frozen=True)
-class MomentFrameModel:
+class MomentFrameModel(FrameModel):
     """The condensed planar moment frame and the member numbers to report forces by."""
 
-    frame: CondensedFrame
     columns: IntArray
     """(n, bays + 1) member numbers, lower end first."""
     beams: IntArray
     """(n, bays) member numbers of the beams on top of each storey, start side first."""
 
-    @property
-    def stiffness(self) -> FloatArray:
-        return self.frame.stiffness
-
     def forces(self, displacements: FloatArray) -> ElementForces:
-        end_forces = self.frame.end_forces(displacements)
-        shear, overturning = self.frame.storey_resultants(end_forces)
+        end_forces, shear, overturning = self.resultants(displacements)
         column = end_forces[self.columns]
         beam = end_forces[self.beams]
         # Member-end moments act counter-clockwise on the member; the sagging bending moment is
@@ -52,15 +46,11 @@ class MomentFrameModel:
 def condense(frame: MomentFrame, length: float, storey_heights: tuple[float, ...]) -> MomentFrameModel:
     """Build the planar moment frame over ``length`` and ``storey_heights`` and condense it."""
     n, bays = len(storey_heights), frame.bays
-    width = length / bays
     E = frame.modulus
     column_EA, column_EI = E * frame.column_area, frame.stiffness_factor * E * frame.column_inertia
     beam_EA, beam_EI = E * frame.beam_area, frame.stiffness_factor * E * frame.beam_inertia
     model = PlanarFrame(storey_heights)
-    grid = [
-        [model.add_node(k * width, level, fixed_rotation=level == 0) for k in range(bays + 1)]
-        for level in range(n + 1)
-    ]
+    grid = model.add_grid(length, bays, fixed_base=True)
     columns = [
         [model.add_beam(grid[i][k], grid[i + 1][k], column_EA, column_EI) for k in range(bays + 1)]
         for i in range(n)

@@ -51,6 +51,15 @@ class PlanarFrame:
         self._fixed_rotation.append(fixed_rotation)
         return len(self._x) - 1
 
+    def add_grid(self, length: float, bays: int, fixed_base: bool = False) -> list[list[int]]:
+        """Nodes at the ``bays + 1`` column lines of equal bays over ``length`` on every floor, from
+        the base up: ``grid[floor][line]``; ``fixed_base`` fixes the base nodes' rotation."""
+        width = length / bays
+        return [
+            [self.add_node(k * width, f, fixed_rotation=fixed_base and f == 0) for k in range(bays + 1)]
+            for f in range(len(self.elevations))
+        ]
+
     def add_truss(self, start: int, end: int, axial: float) -> int:
         """A pin-ended axial member of stiffness EA = ``axial``; returns its index."""
         return self._add((start, end, axial, 0.0, math.inf, False, False))
@@ -259,3 +268,21 @@ class CondensedFrame:
             np.bincount(storey, weights=self.lower_x[crossing] * fz + moment, minlength=n), dtype=np.float64
         )
         return shear, overturning
+
+
+@dataclass(frozen=True)
+class FrameModel:
+    """A kind's condensed planar model: its matrix, and the storey resultants of a displacement
+    (the part the frame, wall and braced models share; each adds its member numbers)."""
+
+    frame: CondensedFrame
+
+    @property
+    def stiffness(self) -> FloatArray:
+        return self.frame.stiffness
+
+    def resultants(self, displacements: FloatArray) -> tuple[FloatArray, FloatArray, FloatArray]:
+        """Member end forces (members, 6), storey shears (n,) and overturning moments (n,)."""
+        end_forces = self.frame.end_forces(displacements)
+        shear, overturning = self.frame.storey_resultants(end_forces)
+        return end_forces, shear, overturning

@@ -15,7 +15,7 @@ from itertools import pairwise
 
 from core.arrays import FloatArray, frozen_array
 from core.elements.forces import ElementForces
-from core.elements.planar_frame import CondensedFrame, PlanarFrame
+from core.elements.planar_frame import FrameModel, PlanarFrame
 from core.model import ShearWall
 
 SHEAR_COEFFICIENT = 5.0 / 6.0
@@ -23,17 +23,11 @@ SHEAR_COEFFICIENT = 5.0 / 6.0
 
 
 @dataclass(frozen=True)
-class ShearWallModel:
+class ShearWallModel(FrameModel):
     """The condensed wall; its forces are the shear and bending moment at each storey's base."""
 
-    frame: CondensedFrame
-
-    @property
-    def stiffness(self) -> FloatArray:
-        return self.frame.stiffness
-
     def forces(self, displacements: FloatArray) -> ElementForces:
-        shear, moment = self.frame.storey_resultants(self.frame.end_forces(displacements))
+        _, shear, moment = self.resultants(displacements)
         return ElementForces(storey_shear=frozen_array(shear), overturning_moment=frozen_array(moment))
 
 

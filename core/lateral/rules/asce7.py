@@ -22,13 +22,8 @@ class Asce7Parameters:
     torsion_extreme: float = 1.4
     """Table 12.3-1 type 1b: extreme torsional irregularity above this ratio."""
     regularity: common.RegularityLimits = field(
-        default_factory=lambda: common.RegularityLimits(
-            soft_storey=(0.70, 0.80),
-            extreme_soft_storey=(0.60, 0.70),
-            extreme_status=Status.FAIL,
-            mass_ratio=1.5,
-            stiffness_clause="ASCE 7-16 Table 12.3-2 types 1a and 1b",
-            mass_clause="ASCE 7-16 Table 12.3-2 type 2",
+        default_factory=lambda: common.table_12_3_2(
+            Status.FAIL, "ASCE 7-16 Table 12.3-2 types 1a and 1b", "ASCE 7-16 Table 12.3-2 type 2"
         )
     )
     modes: common.ModeLimits = field(default_factory=common.ModeLimits)

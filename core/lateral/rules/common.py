@@ -32,6 +32,13 @@ class RegularityLimits:
     mass_clause: str
 
 
+def table_12_3_2(extreme_status: Status, stiffness_clause: str, mass_clause: str) -> RegularityLimits:
+    """The thresholds of ASCE 7-16 Table 12.3-2: a soft storey below 70 % of the storey above or
+    80 % of the three above, extremely soft below 60 % / 70 % (types 1a, 1b), a floor heavier than
+    150 % of an adjacent one (type 2)."""
+    return RegularityLimits((0.70, 0.80), (0.60, 0.70), extreme_status, 1.5, stiffness_clause, mass_clause)
+
+
 @dataclass(frozen=True)
 class ModeLimits:
     """The mode-order checks' limits."""

@@ -26,13 +26,10 @@ class En1998Parameters:
     radius_limit: float = 1.0
     """r ≥ l_s (§4.2.3.2(6) Eq. 4.1b)."""
     regularity: common.RegularityLimits = field(
-        default_factory=lambda: common.RegularityLimits(
-            soft_storey=(0.70, 0.80),
-            extreme_soft_storey=(0.60, 0.70),
-            extreme_status=Status.WARN,
-            mass_ratio=1.5,
-            stiffness_clause=f"EN 1998-1 §4.2.3.3(3): no abrupt change of storey stiffness; {NO_NUMBER}",
-            mass_clause=f"EN 1998-1 §4.2.3.3(3): no abrupt change of storey mass; {NO_NUMBER}",
+        default_factory=lambda: common.table_12_3_2(
+            Status.WARN,
+            f"EN 1998-1 §4.2.3.3(3): no abrupt change of storey stiffness; {NO_NUMBER}",
+            f"EN 1998-1 §4.2.3.3(3): no abrupt change of storey mass; {NO_NUMBER}",
         )
     )
     modes: common.ModeLimits = field(default_factory=common.ModeLimits)
