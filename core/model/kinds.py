@@ -16,6 +16,7 @@ from __future__ import annotations
 import dataclasses
 from collections.abc import Callable, Iterator
 from dataclasses import dataclass
+from enum import StrEnum
 from typing import Any
 
 from core.errors import ModelError
@@ -34,6 +35,17 @@ Kind = str
 """The name of an element kind as stored in a ``.poise`` file (``"braced_frame"``, …)."""
 
 
+class Elevation(StrEnum):
+    """How a kind looks in elevation (the 3D mode view draws it so)."""
+
+    FRAME = "frame"
+    """Columns on the bay lines (``properties.bays`` if it has one), a beam at each floor."""
+    WALL = "wall"
+    """A panel over each storey."""
+    POST = "post"
+    """One post at mid-line and a line at each floor (a spring)."""
+
+
 @dataclass(frozen=True)
 class KindSpec:
     """One element kind as the model sees it."""
@@ -49,6 +61,8 @@ class KindSpec:
     storey_values: str | None = None
     """The name of the properties' field that holds one value per storey spanned (a spring's
     ``storey_stiffness``), or None when the properties do not depend on the span."""
+    elevation: Elevation = Elevation.FRAME
+    """How the kind is drawn in elevation."""
 
     def __post_init__(self) -> None:
         if not dataclasses.is_dataclass(self.properties):
@@ -151,9 +165,11 @@ def storey_removed(properties: Any, index: int) -> Any:
 def _register_builtin_kinds() -> None:
     """The four kinds Poise ships with (their element models live in core/elements)."""
     register_kind(KindSpec(ElementKind.BRACED_FRAME, BracedFrame, "B", lambda material: BracedFrame()))
-    register_kind(KindSpec(ElementKind.SHEAR_WALL, ShearWall, "W", steel_or_concrete_wall))
+    register_kind(KindSpec(ElementKind.SHEAR_WALL, ShearWall, "W", steel_or_concrete_wall, elevation=Elevation.WALL))
     register_kind(KindSpec(ElementKind.MOMENT_FRAME, MomentFrame, "M", steel_or_concrete_frame))
-    register_kind(KindSpec(ElementKind.SPRING, Spring, "S", lambda material: Spring(), "storey_stiffness"))
+    register_kind(
+        KindSpec(ElementKind.SPRING, Spring, "S", lambda material: Spring(), "storey_stiffness", Elevation.POST)
+    )
 
 
 _register_builtin_kinds()

@@ -30,13 +30,13 @@ from core.model import (
     BracedFrame,
     BracePattern,
     Element,
-    ElementKind,
     Kind,
-    MomentFrame,
     Point,
     Project,
+    kind_spec,
     registered_kinds,
 )
+from core.model.kinds import Elevation
 from core.solve.assembly import FloorMass
 from core.solve.modal import Mode
 
@@ -208,13 +208,14 @@ class _SegmentCollector:
 def _elevation_segments(element: Element, elevations: Sequence[float], out: _SegmentCollector) -> None:
     """Columns, beam and braces (or the spring's post) of each storey the element spans."""
     props = element.properties
-    bays = props.bays if isinstance(props, BracedFrame | MomentFrame) else 1
+    bays = int(getattr(props, "bays", 1))
+    post = kind_spec(element.kind).elevation is Elevation.POST
     nodes = _bay_points(element, bays)
     for storey in range(element.bottom + 1, element.top + 1):
         lower, z_lo, upper, z_hi = _storey_ends(storey, elevations)
         lo, hi = (lower, z_lo), (upper, z_hi)
         out.add(nodes[0], hi, nodes[-1], hi)  # the beam, or the spring's line, at the floor above
-        if element.kind is ElementKind.SPRING:
+        if post:
             middle = (nodes[0] + nodes[-1]) / 2
             out.add(middle, lo, middle, hi)
         else:
@@ -301,7 +302,7 @@ def building_geometry(
             AttachedPoints.of([e.start, e.end], j - 1, elevations[j - 1])
             for e in of_kind for j in range(e.bottom + 1, e.top + 1)
         ])
-        if kind is ElementKind.SHEAR_WALL:
+        if kind_spec(kind).elevation is Elevation.WALL:
             walls = [_wall_quads(e, elevations) for e in of_kind]
             frame_lines[kind] = AttachedPoints.empty()
         else:
