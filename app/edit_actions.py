@@ -6,15 +6,41 @@ from __future__ import annotations
 
 from typing import Any
 
-from PySide6.QtCore import QObject
-from PySide6.QtGui import QKeySequence
-from PySide6.QtWidgets import QMessageBox
+from PySide6.QtCore import QEvent, QObject
+from PySide6.QtGui import QAction, QKeyEvent, QKeySequence
+from PySide6.QtWidgets import QApplication, QMessageBox, QWidget
 
 from app import commands
 from app.action_factory import icon, make_action
 from app.copy_levels_dialog import ask_copy_span
 from app.tools.select import describe
 from core.errors import ModelError
+
+
+def _redo_keys() -> list[QKeySequence]:
+    """The platform's redo keys, and both common conventions (Ctrl+Y, Ctrl+Shift+Z) everywhere."""
+    keys = [*QKeySequence.keyBindings(QKeySequence.StandardKey.Redo), QKeySequence("Ctrl+Y"),
+            QKeySequence("Ctrl+Shift+Z")]
+    return list(dict.fromkeys(keys))
+
+
+class ProjectKeysFirst(QObject):
+    """Lets the project's Undo and Redo keys reach their actions while a text field of the window has
+    the keyboard (a field would otherwise claim Ctrl+Z for its own text undo)."""
+
+    def __init__(self, window: Any, actions: list[QAction]) -> None:
+        super().__init__(window)
+        self.window = window
+        self.actions = actions
+
+    def eventFilter(self, watched: QObject, event: QEvent) -> bool:
+        if event.type() != QEvent.Type.ShortcutOverride or not isinstance(watched, QWidget):
+            return False
+        if watched.window() is not self.window:
+            return False  # dialogs keep their fields' own undo
+        assert isinstance(event, QKeyEvent)
+        pressed = QKeySequence(event.keyCombination())
+        return any(pressed in action.shortcuts() for action in self.actions)
 
 
 class EditActions(QObject):
@@ -29,8 +55,10 @@ class EditActions(QObject):
         self.undo_action.setShortcut(key.Undo)
         self.undo_action.setIcon(icon("undo"))
         self.redo_action = document.undo_stack.createRedoAction(window, "&Redo")
-        self.redo_action.setShortcut(key.Redo)
+        self.redo_action.setShortcuts(_redo_keys())
         self.redo_action.setIcon(icon("redo"))
+        self._keys_first = ProjectKeysFirst(window, [self.undo_action, self.redo_action])
+        QApplication.instance().installEventFilter(self._keys_first)
         self.delete_action = make_action(window, "&Delete elements", self.delete_selection, key.Delete)
         self.rotate_action = make_action(
             window,

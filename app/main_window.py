@@ -159,6 +159,8 @@ class MainWindow(QMainWindow):
         self.readouts_dock = self.add_panel(self.readouts, "Live results", "liveResultsPanel", right)
         self.properties_dock = self.add_panel(self.properties, "Properties", "propertiesPanel", right)
         self.tables_dock = self.add_panel(self.tables, "Tables", "tablesPanel", bottom)
+        for form in (self.levels_panel.form, self.properties.form):
+            form.finished.connect(lambda: self.plan_view.setFocus())
         self.setCorner(Qt.Corner.BottomLeftCorner, left)
         self.setCorner(Qt.Corner.BottomRightCorner, right)
         self.resize(1500, 950)

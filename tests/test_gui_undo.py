@@ -59,3 +59,65 @@ def test_a_drag_back_to_its_start_leaves_no_step(qtbot, tmp_path):
     drag(window, (5.0, 9.0), (0.0, 9.0), press=False)
     assert window.document.project == start
     assert window.document.undo_stack.count() == 0
+
+
+def _type_into(widget, text: str) -> None:
+    widget.setFocus()
+    widget.selectAll()
+    QTest.keyClicks(widget, text)
+    QTest.keyClick(widget, Qt.Key.Key_Return)
+    settle(widget.window())
+
+
+def _active(qtbot, window):
+    window.activateWindow()
+    qtbot.waitActive(window)
+
+
+def test_enter_commits_a_field_and_hands_the_keyboard_back_to_the_plan(qtbot, tmp_path):
+    window = make_window(qtbot, tmp_path, balanced_box())
+    _active(qtbot, window)
+    field = window.levels_panel.form.editor("Storey height")
+    _type_into(field, "4.25")
+    assert window.document.project.levels[0].height == 4.25
+    assert window.plan_view.hasFocus(), "the next W reaches the plan's tools, not the field"
+    _type_into(field, "nonsense")
+    assert field.hasFocus(), "a refused value keeps the field, to be corrected"
+
+
+def test_project_undo_and_redo_work_with_the_keyboard_in_a_field(qtbot, tmp_path):
+    window = make_window(qtbot, tmp_path, balanced_box())
+    _active(qtbot, window)
+    document = window.document
+    form = window.levels_panel.form
+    _type_into(form.editor("Storey height"), "4.25")
+    field = form.editor("Seismic weight")
+    field.setFocus()
+    QTest.keyClick(field, Qt.Key.Key_Z, Qt.KeyboardModifier.ControlModifier)
+    settle(window)
+    assert document.project.levels[0].height == 3.5, "Ctrl+Z in a field is the project's undo"
+    QTest.keyClick(field, Qt.Key.Key_Y, Qt.KeyboardModifier.ControlModifier)
+    settle(window)
+    assert document.project.levels[0].height == 4.25, "Ctrl+Y redoes"
+    window.edits.undo_action.trigger()
+    QTest.keyClick(field, Qt.Key.Key_Z, Qt.KeyboardModifier.ControlModifier | Qt.KeyboardModifier.ShiftModifier)
+    settle(window)
+    assert document.project.levels[0].height == 4.25, "Ctrl+Shift+Z redoes too"
+
+
+def test_a_corrected_value_clears_the_stale_message(qtbot, tmp_path):
+    window = make_window(qtbot, tmp_path, balanced_box())
+    form = window.levels_panel.form
+    _type_into(form.editor("Storey height"), "w6")
+    assert "not a number" in form.error_text("Storey height")
+    _type_into(form.editor("Storey height"), "3.5")  # the value it already had
+    assert form.error_text("Storey height") == ""
+    options = window.tool_options
+    window.drawing.set_tool("place-shear_wall")
+    options.fields[0].setText("w6")
+    options.enter()
+    assert "not a number" in options.message.text()
+    QTest.keyClicks(options.fields[0], "")
+    options.fields[0].setFocus()
+    QTest.keyClick(options.fields[0], Qt.Key.Key_Backspace)
+    assert options.message.text() == "", "editing the value clears the old complaint"

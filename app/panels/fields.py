@@ -90,6 +90,7 @@ class _Editor:
         else:
             self.widget = QLineEdit()
             self.widget.editingFinished.connect(self._typed)
+            self.widget.returnPressed.connect(self._entered)
         self.widget.setObjectName(f"field:{row.path or row.label}")
         if row.tip:
             self.widget.setToolTip(row.tip)
@@ -154,8 +155,17 @@ class _Editor:
             return
         self._commit(value)
 
+    def _entered(self) -> None:
+        """Enter: once the value is taken, the keyboard goes back to where the user works (Qt
+        sends this before editingFinished, so the value is read here first)."""
+        self._typed()
+        if not self.error.isVisible():
+            self.form.finished.emit()
+
     def _commit(self, value: Any) -> None:
         problem = self.form.commit(self.row, value)
+        if problem is None and self.form.holds(self):
+            self.clear_error()  # also when the corrected value equals the model's (no refresh comes)
         if problem:
             self.set_error(problem)
             if isinstance(self.widget, QComboBox | QCheckBox):
@@ -183,6 +193,8 @@ class FieldForm(QWidget):
     """
 
     edited = Signal()
+    finished = Signal()
+    """Enter was pressed in a field whose value was taken."""
 
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
@@ -220,6 +232,10 @@ class FieldForm(QWidget):
             column.addWidget(editor.error)
             self._layout.addRow(row.title, box)
             self._editors.append(editor)
+
+    def holds(self, editor: _Editor) -> bool:
+        """Whether ``editor`` is still one of the form's rows (an edit may rebuild them)."""
+        return editor in self._editors
 
     def show_objects(self, objects: list[Any]) -> None:
         self.objects = list(objects)

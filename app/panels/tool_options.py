@@ -53,14 +53,15 @@ class ToolOptions(QToolBar):
 
         self.labels = [QLabel(), QLabel()]
         self.fields = [TypedField(), TypedField()]
+        self.message = QLabel()
+        self.message.setStyleSheet("color: #c62828;")
         self._typed_actions = []
         for label, field in zip(self.labels, self.fields, strict=True):
             field.setFixedWidth(80)
             field.returnPressed.connect(self.enter)
+            field.textEdited.connect(self.message.clear)
             field.escaped.connect(self._back_to_plan)
             self._typed_actions += [self.addWidget(label), self.addWidget(field)]
-        self.message = QLabel()
-        self.message.setStyleSheet("color: #c62828;")
         self._typed_actions.append(self.addWidget(self.message))
         self._typed_actions.append(self.addSeparator())
 
