@@ -271,7 +271,7 @@ class FileActions(QObject):
         else:
             self.guard.take(path)
         self.recent.remember(path)
-        self.window.status.show_hint(f"Saved {path.name}")
+        self.window.status.show_file_note(f"Saved {path.name}")
         return True
 
     # ------------------------------------------------------------------ menus

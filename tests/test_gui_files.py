@@ -135,3 +135,33 @@ def test_recent_files_and_layout_are_remembered(window, tmp_path, qtbot):
     assert again.files.recent.paths() == [str(path.resolve())]
     assert not again.tables_dock.isVisible()
     assert again.plan_view.grid_spacing == 0.5
+
+
+def test_views_show_only_the_current_document_after_new_open_and_delete(qtbot, tmp_path):
+    """No old project's modes after File › New, no snap label naming a deleted element, no
+    "Saved …" after opening another file."""
+
+    from app.canvas.snapping import Snap, SnapKind
+    from app.mode_views.panel import ModeViewsPanel
+    from app.resources import sample_path
+    from core.model.fileio import load_project
+    from tests.helpers import make_window, settle
+
+    window = make_window(qtbot, tmp_path, load_project(sample_path("office_5_storey_braced")))
+    panel = window.findChild(ModeViewsPanel)
+    panel.set_on_screen(True)
+    settle(window)
+    assert panel.mode_box.count() > 0
+    window.status.show_snap(Snap((0.0, 0.0), SnapKind.END, "end of B1"))
+    window.document.select(["B1"])
+    window.edits.delete_action.trigger()
+    settle(window)
+    assert "B1" not in window.status.snap.text()
+    assert window.files.save_as(tmp_path / "a.poise")
+    assert window.status.hint.text().startswith("Saved")
+    assert window.files.open_file(sample_path("pavilion_1_storey"), confirm=False)
+    settle(window)
+    assert not window.status.hint.text().startswith("Saved")
+    window.files.new_project()
+    settle(window)
+    assert panel.mode_box.count() == 0 and panel.floor_box.count() == 0

@@ -260,6 +260,8 @@ class ModeViewsPanel(QWidget):
         results, project = self.document.results, self.document.analysed_project
         if results is None or project is None or not results.modes:
             self._results = self._geometry = None
+            for box in (self.mode_box, self.floor_box):  # no choices from a project no longer shown
+                box.clear()
             error = self.document.error
             message = error.message if error is not None else "The analysis has not run yet."
             self.diagnostic.setText(f"No mode shapes to show.\n\n{message}")

@@ -30,9 +30,22 @@ class StatusPanel(QStatusBar):
         document.preview_changed.connect(self.show_analysis)
         self.show_analysis()
         self.show_snap(None)
+        self._file_note = ""
+        document.project_changed.connect(lambda: self.show_snap(None))  # it may name a deleted element
+        document.file_path_changed.connect(self._forget_file_note)
 
     def show_hint(self, text: str) -> None:
         self.hint.setText(text)
+
+    def show_file_note(self, text: str) -> None:
+        """A hint about the open file ("Saved …"), dropped when another file is opened or made."""
+        self.show_hint(text)
+        self._file_note = text
+
+    def _forget_file_note(self) -> None:
+        if self._file_note and self.hint.text() == self._file_note:
+            self.hint.clear()
+        self._file_note = ""
 
     def show_cursor(self, x: float, y: float) -> None:
         self.cursor.setText(f"x {x:9.3f}  y {y:9.3f} m")
