@@ -90,3 +90,41 @@ def test_level_actions_in_the_window_are_undoable(qtbot, tmp_path):
     field.setText("Ground")
     field.editingFinished.emit()
     assert window.document.project.levels[0] == renamed
+
+
+def test_copy_to_levels_dialog_says_from_and_to_and_offers_only_valid_tops(qtbot):
+    from PySide6.QtWidgets import QFormLayout
+
+    from app.copy_levels_dialog import CopySpanDialog
+    from core.model import Level, Project
+
+    outline = ((0.0, 0.0), (10.0, 0.0), (10.0, 10.0), (0.0, 10.0))
+    project = Project(levels=tuple(Level(f"Level {i}", 3.0, outline) for i in range(1, 5)))
+    dialog = CopySpanDialog(None, project)
+    qtbot.addWidget(dialog)
+    form = dialog.findChild(QFormLayout)
+    labels = [form.itemAt(i, QFormLayout.ItemRole.LabelRole).widget().text() for i in range(2)]
+    assert "from" in labels[0] and labels[1] == "to"
+    dialog.bottom.setCurrentIndex(dialog.bottom.findData(2))
+    tops = [dialog.top.itemData(i) for i in range(dialog.top.count())]
+    assert tops == [3, 4]
+    assert dialog.span() == (2, 3)
+
+
+def test_a_span_that_misses_the_current_level_is_widened_and_says_so(qtbot, tmp_path):
+    from app.tools.place import PlaceElementTool
+    from core.model import Level, Project
+    from tests.helpers import drag, make_window
+
+    outline = ((0.0, 0.0), (20.0, 0.0), (20.0, 10.0), (0.0, 10.0))
+    window = make_window(qtbot, tmp_path, Project(levels=tuple(Level(f"Level {i}", 3.0, outline) for i in (1, 2, 3))))
+    window.document.set_current_level(3)
+    window.drawing.set_tool("place-shear_wall")
+    tool = window.plan_view.tool
+    assert isinstance(tool, PlaceElementTool)
+    tool.placement.set(0, 2)
+    drag(window, (2.0, 2.0), (8.0, 2.0))
+    (wall,) = window.document.project.elements
+    assert (wall.bottom, wall.top) == (0, 3)
+    hint = window.status.hint.text()
+    assert "Base to Level 3" in hint and "does not include Level 3" in hint

@@ -118,7 +118,19 @@ class PlaceElementTool(Tool):
         element = trial.elements[-1]
         self.document.apply(trial, f"Add {element.id}")
         self.document.select([element.id])
-        self.say(f"Placed {element.id} ({element.length:.3f} m). Next: press at a start point.")
+        self.say(f"Placed {element.id} ({element.length:.3f} m){self._widened_note(trial, element)}. "
+                 "Next: press at a start point.")
+
+    def _widened_note(self, project: Project, element) -> str:
+        """Why the element spans more than the chosen span, when the chosen one missed this level."""
+        count = len(project.levels)
+        bottom, top = self.placement.bottom, min(self.placement.top or count, count)
+        if element.bottom >= bottom and element.top <= top:
+            return ""
+        names = ["Base", *(level.name for level in project.levels)]
+        return (f", spanning {names[element.bottom]} to {names[element.top]}: the chosen span "
+                f"{names[bottom]} to {names[top]} does not include {names[self.document.current_level]}, "
+                "so it was widened")
 
     def enter_typed(self, values: tuple[float | None, ...]) -> str | None:
         if self._start is None:
