@@ -56,7 +56,10 @@ def assert_same(project: Project, warm: Results | str, cold: Results | str) -> N
         assert w.element == c.element
         size = max(np.abs(c.shears).max(initial=0.0), 1.0)
         np.testing.assert_allclose(w.shears, c.shears, rtol=0, atol=TOLERANCE * size)
-        np.testing.assert_allclose(w.shares, c.shares, rtol=0, atol=TOLERANCE)
+        # Shares reach hundreds where a near-mechanism makes two close lines fight a torsion, so the
+        # tolerance follows their size as it does for the shears.
+        share_size = max(np.abs(c.shares).max(initial=0.0), 1.0)
+        np.testing.assert_allclose(w.shares, c.shares, rtol=0, atol=TOLERANCE * share_size)
         np.testing.assert_allclose(w.brace_force_envelope, c.brace_force_envelope, rtol=0, atol=TOLERANCE * size)
 
 

@@ -84,6 +84,10 @@ def test_an_unstable_layout_shows_its_diagnostic_on_the_canvas(qtbot, tmp_path):
     window = make_window(qtbot, tmp_path, project)
     text = window.plan_view.diagnostic_text()
     assert text is not None and raised.value.message in text
+    # The banner sits in a strip above the plan: the plan's viewport starts below it.
+    banner = window.plan_view.banner
+    assert banner.isVisible() and raised.value.message in banner.text()
+    assert window.plan_view.viewport().geometry().top() >= banner.geometry().bottom()
     if raised.value.levels:
         assert "Level 1" in text
     assert window.readouts.torsion_values() is None
@@ -97,6 +101,8 @@ def test_an_unstable_layout_shows_its_diagnostic_on_the_canvas(qtbot, tmp_path):
     window.drawing.set_tool("place-braced_frame")
     drag(window, (15.0, 0.0), (21.0, 0.0))
     assert window.plan_view.diagnostic_text() is None
+    assert not window.plan_view.banner.isVisible()
+    assert window.plan_view.viewport().geometry().top() == 0
     assert window.readouts.torsion_values() is not None
 
 

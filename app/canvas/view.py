@@ -1,8 +1,8 @@
 """The plan view: y up, zoom about the cursor, pan, fit, grid, snap marker and diagnostics.
 
 The view turns Qt mouse events into :class:`app.tools.base.PlanEvent` (metres, snapped) and hands
-them to the active tool. It draws the grid behind the scene and, in front of it, the snap marker
-and the banner that explains an unstable layout.
+them to the active tool. It draws the grid behind the scene and, in front of it, the snap marker;
+the banner that explains an unstable layout sits in a strip above the plan, never over it.
 """
 
 from __future__ import annotations
@@ -10,8 +10,8 @@ from __future__ import annotations
 import math
 
 from PySide6.QtCore import QLineF, QPointF, QRectF, Qt, Signal
-from PySide6.QtGui import QColor, QFont, QKeyEvent, QMouseEvent, QPainter, QTransform, QWheelEvent
-from PySide6.QtWidgets import QFrame, QGraphicsView, QWidget
+from PySide6.QtGui import QColor, QFont, QKeyEvent, QMouseEvent, QPainter, QResizeEvent, QTransform, QWheelEvent
+from PySide6.QtWidgets import QFrame, QGraphicsView, QLabel, QWidget
 
 from app.canvas import style
 from app.canvas.grid import draw_grid
@@ -64,7 +64,14 @@ class PlanView(QGraphicsView):
         self.viewport().setMouseTracking(True)
         self.setTransform(QTransform.fromScale(20.0, -20.0))
         self._zoom_changed()
+        self.banner = QLabel(self)
+        """The strip above the plan that says why the layout cannot be analysed (hidden otherwise)."""
+        self.banner.setFont(BANNER_FONT)
+        self.banner.setWordWrap(True)
+        self.banner.hide()
         self.document.results_changed.connect(self.viewport().update)
+        self.document.results_changed.connect(self._refresh_banner)
+        self.document.project_changed.connect(self._refresh_banner)
         self.document.project_changed.connect(self._forget_targets)
         self.document.current_level_changed.connect(self._forget_targets)
         self.document.underlay_changed.connect(self._forget_targets)
@@ -275,9 +282,6 @@ class PlanView(QGraphicsView):
         painter.setRenderHint(QPainter.RenderHint.Antialiasing)
         if self._snap is not None:
             draw_snap_marker(painter, self.to_view(self._snap.point), self._snap.kind, self._snap.along)
-        text = self.diagnostic_text()
-        if text:
-            self._draw_banner(painter, text)
         painter.restore()
 
     @property
@@ -299,19 +303,34 @@ class PlanView(QGraphicsView):
             return "No floor yet: draw the outline of level 1 (Outline or Rectangle tool)."
         return f"Cannot analyse this layout: {error.message}"  # the message names the levels and motion
 
-    def _draw_banner(self, painter: QPainter, text: str) -> None:
-        painter.setFont(BANNER_FONT)
-        margin = 10
-        width = self.viewport().width() - 2 * margin
-        box = painter.fontMetrics().boundingRect(0, 0, width - 20, 400, Qt.TextFlag.TextWordWrap, text)
-        frame = QRectF(margin, margin, width, box.height() + 16)
+    def _refresh_banner(self) -> None:
+        """Show the diagnostic in the strip above the plan, shrinking the plan by its height."""
+        text = self.diagnostic_text()
+        if not text:
+            self.banner.hide()
+            self.setViewportMargins(0, 0, 0, 0)
+            return
         unstable = bool(self.document.shown_project.levels)
-        painter.setPen(style.pen(style.DIAGNOSTIC if unstable else style.FLOOR_EDGE, 1.5))
-        painter.setBrush(QColor(255, 240, 240, 235) if unstable else QColor(255, 255, 255, 235))
-        painter.drawRoundedRect(frame, 5, 5)
-        painter.setPen(style.DIAGNOSTIC if unstable else style.FLOOR_EDGE)
-        painter.drawText(frame.adjusted(10, 8, -10, -8), Qt.TextFlag.TextWordWrap, text)
+        edge = style.DIAGNOSTIC if unstable else style.FLOOR_EDGE
+        fill = "#fff0f0" if unstable else "#ffffff"
+        self.banner.setStyleSheet(
+            f"QLabel {{ background: {fill}; color: {edge.name()}; border-bottom: 2px solid {edge.name()};"
+            " padding: 6px 10px; }"
+        )
+        self.banner.setText(text)
+        self._place_banner()
+        self.banner.show()
 
+    def _place_banner(self) -> None:
+        width = self.width()
+        height = self.banner.heightForWidth(width)
+        self.banner.setGeometry(0, 0, width, height)
+        self.setViewportMargins(0, height, 0, 0)
+
+    def resizeEvent(self, event: QResizeEvent) -> None:
+        super().resizeEvent(event)
+        if self.banner.isVisible():
+            self._place_banner()
 
 SNAP_TAGS: dict[SnapKind, str] = {
     SnapKind.VERTEX: "corner",
