@@ -103,7 +103,7 @@ def test_screenshot_shows_the_snap_markers(qtbot, tmp_path):
         QTest.mouseMove(view.viewport(), view_point(window, 1.0, 1.0))
         QTest.mouseMove(view.viewport(), view_point(window, *where))
         assert view.shown_snap is not None and view.shown_snap.kind is kind
-        image = view.grab().toImage()
+        image = view.viewport().grab().toImage()  # viewport pixels, as view_point gives
         assert image.save(str(folder / f"snap_{kind.value}.png"))
         c = view_point(window, *where)
         inked = [image.pixelColor(c.x() + dx, c.y() + dy) for dx in range(-6, 7) for dy in range(-6, 7)]

@@ -5,7 +5,6 @@ installed; CI (.ci/run sets POISE_REQUIRE_XVFB=1) installs it and this test must
 from __future__ import annotations
 
 import os
-import select
 import shutil
 import subprocess
 import sys
@@ -45,24 +44,25 @@ print("platform", app.platformName(), "visible", seen["visible"], "size", image.
 """
 
 
-def _start_xvfb() -> tuple[subprocess.Popen, str]:
-    """An Xvfb server: on POISE_XVFB_DISPLAY if set, else on a display number it picks itself."""
+def _free_display() -> str:
+    """POISE_XVFB_DISPLAY if set, else the first display number from 90 up with no server's lock
+    (the low numbers are where other sessions' servers live)."""
     wanted = os.environ.get("POISE_XVFB_DISPLAY")
-    screen = ["-screen", "0", "1280x900x24", "-nolisten", "tcp"]
     if wanted:
-        server = subprocess.Popen(["Xvfb", f":{wanted}", *screen], stderr=subprocess.DEVNULL)
-        socket = Path(f"/tmp/.X11-unix/X{wanted}")
-        deadline = time.monotonic() + 10
-        while not socket.exists() and time.monotonic() < deadline and server.poll() is None:
-            time.sleep(0.05)
-        return server, f":{wanted}"
-    read_end, write_end = os.pipe()
-    server = subprocess.Popen(["Xvfb", "-displayfd", str(write_end), *screen], pass_fds=(write_end,),
-                              stderr=subprocess.DEVNULL)
-    os.close(write_end)
-    ready, _, _ = select.select([read_end], [], [], 15)
-    number = os.read(read_end, 32).decode().strip() if ready else ""
-    os.close(read_end)
+        return wanted
+    return next(str(n) for n in range(90, 400) if not Path(f"/tmp/.X{n}-lock").exists())
+
+
+def _start_xvfb() -> tuple[subprocess.Popen, str]:
+    """An Xvfb server on a free display, returned once its socket accepts connections."""
+    number = _free_display()
+    screen = ["-screen", "0", "1280x900x24", "-nolisten", "tcp"]
+    server = subprocess.Popen(["Xvfb", f":{number}", *screen], stderr=subprocess.DEVNULL)
+    socket = Path(f"/tmp/.X11-unix/X{number}")
+    deadline = time.monotonic() + 15
+    while not socket.exists() and time.monotonic() < deadline and server.poll() is None:
+        time.sleep(0.05)
+    time.sleep(0.3)  # the socket file appears a moment before the server accepts on it
     return server, f":{number}"
 
 

@@ -21,7 +21,6 @@ from PySide6.QtGui import (
     QPainter,
     QPaintEvent,
     QPen,
-    QShowEvent,
 )
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QMenu, QSizePolicy, QToolButton, QVBoxLayout, QWidget
 
@@ -30,6 +29,7 @@ from app.commands import replace_level
 from app.document import ProjectDocument
 from app.panels.fields import FieldForm, Row
 from app.panels.verdicts import colour_of, storey_state
+from app.panels.when_shown import WhenShown
 from app.units import AREA_LOAD, LENGTH
 from core.report.figures import drift_text
 from core.solve.assembly import floor_masses
@@ -291,24 +291,14 @@ class LevelsPanel(QWidget):
         # The fields show the level's own figures, not results: a drag's results leave them alone.
         document.project_changed.connect(self.refresh)
         document.current_level_changed.connect(self.refresh)
-        self._stale = False
-        """The project or level changed while the panel was hidden."""
-        self._fill()
-
-    def showEvent(self, event: QShowEvent) -> None:
-        super().showEvent(event)
-        if self._stale:
-            self._fill()
+        self._when_shown = WhenShown(self, self._fill)
+        self._when_shown.fill()
 
     def refresh(self, *_: object) -> None:
         """Show the current level's fields now, or when the panel is next shown if it is hidden."""
-        if self.isVisible():
-            self._fill()
-        else:
-            self._stale = True
+        self._when_shown.request()
 
     def _fill(self) -> None:
-        self._stale = False
         project = self.document.project
         number = self.document.current_level
         if not project.levels:

@@ -12,13 +12,14 @@ from dataclasses import dataclass, field
 from typing import ClassVar
 
 from PySide6.QtCore import QEvent, QPoint, QRectF, Qt
-from PySide6.QtGui import QColor, QFont, QFontMetrics, QHelpEvent, QPainter, QPaintEvent, QShowEvent
+from PySide6.QtGui import QColor, QFont, QFontMetrics, QHelpEvent, QPainter, QPaintEvent
 from PySide6.QtWidgets import QLabel, QScrollArea, QToolTip, QVBoxLayout, QWidget
 
 from app.canvas import style
 from app.document import ProjectDocument
 from app.panels.results import fmt_number, mode_type
 from app.panels.verdicts import STATUS_WORDS, check_summaries, colour_of
+from app.panels.when_shown import WhenShown
 from core.lateral.records import Check
 from core.report.figures import CODE_LIMITS, verdict_figures
 from core.report.summary import CAUTION
@@ -215,21 +216,12 @@ class ReadoutsPanel(QWidget):
         layout.addWidget(self.caution)
         layout.addWidget(scroll, 1)
         document.results_changed.connect(self.refresh)
-        self._stale = False
-        """Results arrived while the panel was hidden (its dock closed or behind a tab)."""
-        self._fill()
-
-    def showEvent(self, event: QShowEvent) -> None:
-        super().showEvent(event)
-        if self._stale:
-            self._fill()
+        self._when_shown = WhenShown(self, self._fill)
+        self._when_shown.fill()
 
     def refresh(self) -> None:
         """Show the latest results now, or when the panel is next shown if it is hidden."""
-        if self.isVisible():
-            self._fill()
-        else:
-            self._stale = True
+        self._when_shown.request()
 
     def torsion_values(self) -> tuple[float, float] | None:
         """(worst x, worst y) torsion ratio shown, or None when no results are shown."""
@@ -242,7 +234,6 @@ class ReadoutsPanel(QWidget):
         return self.board.plain_text()
 
     def _fill(self) -> None:
-        self._stale = False
         document = self.document
         results = document.results
         if results is None:
