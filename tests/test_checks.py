@@ -345,3 +345,20 @@ def test_results_carry_sources_and_are_frozen():
     assert {v.name for v in lateral.verdicts} >= {Check.TORSION_RATIO, Check.DRIFT}
     with pytest.raises(ValueError):
         lateral.cases[0].displacements[0, 0] = 1.0
+
+
+def test_en1998_drift_verdicts_say_they_judge_the_reduced_design_drift():
+    """Under EN 1998-1 the judged figure is ν·d_r/h (§4.4.3.2(1)), not the design drift itself:
+    the verdict's note must say so, and its value is ν times the storey's design drift ratio."""
+    from app.resources import sample_projects
+    from core.model.fileio import load_project
+
+    project = load_project(next(p for p in sample_projects() if "office" in p.stem))
+    lateral = analyse(project).lateral
+    drifts = [v for v in lateral.verdicts if v.name == Check.DRIFT]
+    assert drifts
+    nu = project.settings.drift_reduction
+    for verdict in drifts:
+        assert "ν·d_r" in verdict.note
+        storey = next(s for s in lateral.storeys if s.storey == verdict.storey)
+        assert verdict.value == pytest.approx(nu * storey.drift_ratio["xy".index(verdict.direction)], rel=1e-12)

@@ -220,19 +220,6 @@ def _building_text(verdict: Verdict) -> str:
     return f"{verdict.name}{direction}: {value} against {limit}{note}"
 
 
-def number_text(value: float) -> str:
-    """A judged figure in three significant digits; ∞ for an infinite one."""
-    if math.isinf(value):
-        return "∞" if value > 0 else "−∞"
-    if math.isnan(value):
-        return "–"
-    if abs(value) >= 1000:
-        return f"{value:,.0f}"
-    if value != 0 and abs(value) < 0.01:
-        return f"{value:.3g}"
-    return f"{value:.3g}" if abs(value) >= 1 else f"{value:.3f}"
-
-
 def _spectrum_text(settings: Settings) -> str:
     method = settings.load_method
     if method is LoadMethod.EN1998:

@@ -21,7 +21,6 @@ from app.sheet.content import (
     ChecksColumn,
     SheetContent,
     listed_modes,
-    number_text,
     period_text,
     sheet_content,
 )
@@ -40,7 +39,7 @@ from app.sheet.painting import (
 from app.sheet.plan_drawing import draw_legend, draw_plan
 from core.lateral.records import STATUS_ORDER, Status
 from core.model import Project
-from core.report.figures import CODE_LIMITS
+from core.report.figures import CODE_LIMITS, judged_figures
 from core.results import Results
 
 MIDDLE = Qt.TextElideMode.ElideMiddle
@@ -231,9 +230,9 @@ class SheetPainter:
                 if cell is None:
                     cells.append("–")
                     continue
-                value = number_text(cell.value)
+                value, limit = judged_figures(column.name, cell.value, cell.limit)
                 if column.limit is None:
-                    value += f"/{number_text(cell.limit)}"
+                    value += f"/{limit}"
                 word = "" if compact and cell.status is Status.PASS else f" {cell.status.value}"
                 cells.append(Cell(value + word, cell.status, bold=cell.status is Status.FAIL))
             rows.append(cells)
@@ -395,7 +394,8 @@ def _ranges(numbers: tuple[int, ...]) -> str:
 
 def _column_header(column: ChecksColumn) -> str:
     name = column.label + (f", {column.direction}" if column.direction else "")
-    limit = f"limit {column.limit:g} " if column.limit is not None else ""
+    shown = judged_figures(column.name, column.limit, column.limit)[1] if column.limit is not None else ""
+    limit = f"limit {shown} " if column.limit is not None else ""
     return f"{name}\n{limit}[{', '.join(column.clauses)}]"
 
 

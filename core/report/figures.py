@@ -31,15 +31,20 @@ def drift_text(ratio: float, decimals: int = 2) -> str:
 
 
 def verdict_figures(verdict: Verdict) -> tuple[str, str]:
-    """The value and the limit of ``verdict`` as shown: drifts as percentages with two decimals,
-    mode numbers as integers, anything else with four significant figures. Where the value differs
-    from its limit, more digits are given until the two texts differ too (never "0.5 % vs 0.5 %")."""
-    value, limit = verdict.value, verdict.limit
-    if verdict.name in MODE_NUMBER_CHECKS and float(value).is_integer() and float(limit).is_integer():
+    """The value and the limit of ``verdict`` as shown (see :func:`judged_figures`)."""
+    return judged_figures(verdict.name, verdict.value, verdict.limit)
+
+
+def judged_figures(name: str, value: float, limit: float) -> tuple[str, str]:
+    """A judged figure of check ``name`` and its limit as shown: drifts as percentages with two
+    decimals, mode numbers as integers, anything else with four significant figures. Where the value
+    differs from its limit, more digits are given until the two texts differ too (never "0.5 % vs
+    0.5 %")."""
+    if name in MODE_NUMBER_CHECKS and float(value).is_integer() and float(limit).is_integer():
         return f"{value:.0f}", f"{limit:.0f}"
     if not (math.isfinite(value) and math.isfinite(limit)):
         return _general(value, SIGNIFICANT), _general(limit, SIGNIFICANT)
-    drift = verdict.name is Check.DRIFT
+    drift = name == Check.DRIFT
     for extra in range(8):
         if drift:
             texts = drift_text(value, 2 + extra), drift_text(limit, 2 + extra)

@@ -109,10 +109,16 @@ def regularity(storeys: Sequence[StoreyLateral], limits: RegularityLimits) -> li
 
 
 def drift(
-    storey: StoreyLateral, direction_index: int, value: float, limit: float, clause: str, where: str
+    storey: StoreyLateral,
+    direction_index: int,
+    value: float,
+    limit: float,
+    clause: str,
+    where: str,
+    quantity: str = "design drift",
 ) -> Verdict:
-    """The drift verdict of one storey and direction: ``value`` (design drift ratio, reduced where
-    the code says) against ``limit``."""
+    """The drift verdict of one storey and direction: ``value`` (``quantity``, e.g. the design drift
+    or the reduced design drift ν·d_r of EN 1998-1, over the storey height) against ``limit``."""
     return Verdict(
         name=Check.DRIFT,
         value=value,
@@ -121,7 +127,7 @@ def drift(
         clause=clause,
         storey=storey.storey,
         direction=DIRECTIONS[direction_index],
-        note=f"design drift {where} over the storey height, against the drift limit.",
+        note=f"{quantity} {where} over the storey height, against the drift limit.",
     )
 
 

@@ -59,7 +59,11 @@ class En1998Rules(CodeRules):
         clause = f"EN 1998-1 §4.4.3.2(1): ν·d_r ≤ limit·h, ν = {nu:g} (§4.4.3.2(2)); d_r = q·d_e (§4.3.4)"
         for s in storeys:
             for i in range(2):
-                verdicts.append(common.drift(s, i, nu * s.drift_ratio[i], limit, clause, "at the mass centre"))
+                reduced = nu * s.drift_ratio[i]
+                where = "at the mass centre"
+                verdicts.append(
+                    common.drift(s, i, reduced, limit, clause, where, quantity="reduced design drift ν·d_r")
+                )
         verdicts.extend(common.mode_order(order, self.parameters.modes))
         return tuple(verdicts)
 
