@@ -304,8 +304,11 @@ class PlanView(QGraphicsView):
         return f"Cannot analyse this layout: {error.message}"  # the message names the levels and motion
 
     def _refresh_banner(self) -> None:
-        """Show the diagnostic in the strip above the plan, shrinking the plan by its height."""
+        """Show the diagnostic in the strip above the plan, shrinking the plan by its height. A
+        drag's previews repeat the same text, so an unchanged text costs nothing."""
         text = self.diagnostic_text()
+        if text == (self.banner.text() if self.banner.isVisibleTo(self) else None):
+            return
         if not text:
             self.banner.hide()
             self.setViewportMargins(0, 0, 0, 0)
