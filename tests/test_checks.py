@@ -361,4 +361,6 @@ def test_en1998_drift_verdicts_say_they_judge_the_reduced_design_drift():
     for verdict in drifts:
         assert "ν·d_r" in verdict.note
         storey = next(s for s in lateral.storeys if s.storey == verdict.storey)
-        assert verdict.value == pytest.approx(nu * storey.drift_ratio["xy".index(verdict.direction)], rel=1e-12)
+        i = "xy".index(verdict.direction)
+        # × 1/(1 − θ) where P-Δ amplifies the storey (EN 1998-1 §4.4.2.2(3)).
+        assert verdict.value == pytest.approx(nu * storey.drift_ratio[i] * storey.p_delta_factor[i], rel=1e-12)

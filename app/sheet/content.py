@@ -54,6 +54,8 @@ SHORT_NAMES: dict[Check, str] = {
     Check.STIFFNESS_AVERAGE: "stiffness / 3 storeys above",
     Check.MASS_RATIO: "mass / adjacent",
     Check.DRIFT: "drift ratio",
+    Check.STABILITY: "θ (P-Δ)",
+    Check.STATIC_METHOD: "static method",
 }
 """Column headings for the verdict names of core.lateral, short enough for a narrow table; the
 footnotes spell each one out. Names not listed are shown in full."""

@@ -19,6 +19,7 @@ from core.arrays import FloatArray, frozen_array, sums_from_top
 from core.elements import member_forces
 from core.lateral.cases import DIRECTIONS
 from core.lateral.centres import StoreyStiffness, no_twist_offsets, storey_properties, storey_stiffnesses
+from core.lateral.p_delta import StabilityLimits, amplification, gravity_loads, stability_coefficients
 from core.lateral.loads import (
     accidental_eccentricities,
     case_load_vector,
@@ -28,6 +29,7 @@ from core.lateral.loads import (
 )
 from core.lateral.records import (
     CaseResult,
+    StaticLoad,
     ElementDemand,
     LateralResults,
     StoreyLateral,
@@ -107,6 +109,7 @@ def lateral_checks(
         [_storey_stiffness(centred[d], centres, patterns[i], d) for i, d in enumerate(DIRECTIONS)]
     )
 
+    rules = rules_for(settings)
     storeys = _storeys(
         project,
         floors,
@@ -119,13 +122,14 @@ def lateral_checks(
         masses,
         heights,
         drift_amplification(settings),
+        _stability(rules.stability_limits(settings), masses, settings.gravity_factor, loads, heights),
     )
     scales = np.array([loads[DIRECTIONS.index(r.case.direction)].base_shear for r in cases])
     matrices = element_matrices or [element_matrix(project, e) for e in project.elements]
     displacements = unit[:, reported] * scales
-    elements = ElementDemands(lambda: element_demands(project, floors, matrices, displacements, cases))
+    p_delta = np.array([s.p_delta_factor for s in storeys])
+    elements = ElementDemands(lambda: element_demands(project, floors, matrices, displacements, cases, p_delta))
     order = mode_order(modes)
-    rules = rules_for(settings)
     drift_limit = rules.drift_limit(settings)
     return LateralResults(
         rule_set=str(rules.name),
@@ -140,7 +144,8 @@ def lateral_checks(
         storeys=storeys,
         elements=elements,
         mode_order=order,
-        verdicts=rules.judge(settings, storeys, order),
+        verdicts=rules.judge(settings, storeys, order)
+        + rules.method_limits(settings, loads, storeys, float(elevations[-1])),
         notes=rules.notes(settings),
     )
 
@@ -148,6 +153,29 @@ def lateral_checks(
 def _modal_period(modes: Sequence[Mode], axis: int) -> float:
     """Period of the mode with the largest effective mass in direction ``axis`` (0 = x, 1 = y)."""
     return max(modes, key=lambda m: m.mass_ratio[axis]).period
+
+
+StoreyStability = tuple[FloatArray, Callable[[FloatArray], tuple[FloatArray, FloatArray]]]
+"""The gravity loads (N,) and a function from design drift ratios (N, 2) to θ and 1/(1 − θ)."""
+
+
+def _stability(
+    limits: StabilityLimits | None,
+    masses: FloatArray,
+    factor: float,
+    loads: Sequence[StaticLoad],
+    heights: FloatArray,
+) -> StoreyStability:
+    gravity = gravity_loads(masses, factor)
+    shears = np.column_stack([ld.storey_shears for ld in loads])
+
+    def judged(drift_ratios: FloatArray) -> tuple[FloatArray, FloatArray]:
+        if limits is None:
+            return np.zeros_like(drift_ratios), np.ones_like(drift_ratios)
+        theta = stability_coefficients(gravity, drift_ratios, shears, limits.drift_factor)
+        return theta, amplification(theta, limits)
+
+    return gravity, judged
 
 
 def _storey_stiffness(
@@ -171,8 +199,12 @@ def _storeys(
     masses: FloatArray,
     heights: FloatArray,
     amplification: float,
+    stability: StoreyStability,
 ) -> tuple[StoreyLateral, ...]:
     drift = {d: design_drift_ratios(cases, heights, d, amplification) for d in DIRECTIONS}
+    gravity, judged = stability
+    theta, p_delta = (a.tolist() for a in judged(np.column_stack([drift["x"][0], drift["y"][0]])))
+    gravity_list = gravity.tolist()
     ratios = {d: stiffness_ratios(storey_k[:, i]) for i, d in enumerate(DIRECTIONS)}
     mass = _applicable(mass_ratios(masses))
     worst = {
@@ -226,6 +258,9 @@ def _storeys(
                 stiffness_ratio_above=(above[j][0], above[j][1]),
                 stiffness_ratio_average=(average[j][0], average[j][1]),
                 mass_ratio=(mass[j][0], mass[j][1]),
+                gravity_load=gravity_list[j],
+                stability_coefficient=(theta[j][0], theta[j][1]),
+                p_delta_factor=(p_delta[j][0], p_delta[j][1]),
             )
         )
     return tuple(out)
@@ -284,14 +319,51 @@ def element_demands(
     matrices: Sequence[FloatArray],
     displacements: FloatArray,
     cases: tuple[CaseResult, ...],
+    p_delta: FloatArray | None = None,
 ) -> tuple[ElementDemand, ...]:
     """Shears, shares, brace forces and base moment of every element over the reported cases.
 
     ``displacements`` is (3N, cases): the global response of each case; ``matrices`` the elements'
-    condensed matrices. The displacements along every element's line on every floor it spans are
-    found in one batch; each element then costs one product with its matrix."""
+    condensed matrices; ``p_delta`` (N, 2) the storeys' P-Δ factors 1/(1 − θ) in x and y, which
+    multiply the shears, brace forces and base moment (the largest factor of the storeys spanned)
+    of the cases in that direction (the shares are unchanged). The displacements along every
+    element's line on every floor it spans are found in one batch; each element then costs one
+    product with its matrix."""
     if not project.elements:
         return ()
+    line, first = element_lines(project, floors, displacements)
+    groups: dict[tuple[int, int], list[int]] = {}
+    for i, e in enumerate(project.elements):
+        groups.setdefault((e.bottom, e.top), []).append(i)
+    axis = np.array([0 if r.case.direction == "x" else 1 for r in cases], dtype=int)
+    factors = np.ones((len(floors), len(cases))) if p_delta is None else p_delta[:, axis]
+    demands: list[ElementDemand | None] = [None] * len(project.elements)
+    for (bottom_level, top_level), members in groups.items():
+        spanned = slice(bottom_level, top_level)
+        group_lines = np.stack([line[first[i] : first[i + 1]] for i in members])  # (G, storeys, cases)
+        for i, demand in zip(
+            members,
+            _span_group_demands(
+                project,
+                [project.elements[i] for i in members],
+                np.stack([matrices[i] for i in members]),
+                group_lines,
+                cases,
+                spanned,
+                factors[spanned],
+            ),
+            strict=True,
+        ):
+            demands[i] = demand
+    return tuple(d for d in demands if d is not None)
+
+
+def element_lines(
+    project: Project, floors: tuple[FloorMass, ...], displacements: FloatArray
+) -> tuple[FloatArray, FloatArray]:
+    """The displacements along every element's line on every floor it spans, relative to its
+    bottom, for each column of ``displacements`` (3N, columns): rows of element i are
+    ``first[i]:first[i + 1]`` of the (Σ storeys, columns) array."""
     counts = [e.storey_count for e in project.elements]
     floor = np.concatenate([np.arange(e.bottom, e.top) for e in project.elements])
     lines = np.repeat(np.array([(*e.direction, *e.start) for e in project.elements], dtype=float), counts, axis=0)
@@ -310,27 +382,20 @@ def element_demands(
     if np.any(above_base):
         line -= np.where(above_base[:, None], along(np.maximum(bottom, 0)), 0.0)
     first = np.concatenate([[0], np.cumsum(counts)])
-    groups: dict[tuple[int, int], list[int]] = {}
-    for i, e in enumerate(project.elements):
-        groups.setdefault((e.bottom, e.top), []).append(i)
-    demands: list[ElementDemand | None] = [None] * len(project.elements)
-    for (bottom_level, top_level), members in groups.items():
-        spanned = slice(bottom_level, top_level)
-        group_lines = np.stack([line[first[i] : first[i + 1]] for i in members])  # (G, storeys, cases)
-        for i, demand in zip(
-            members,
-            _span_group_demands(
-                project,
-                [project.elements[i] for i in members],
-                np.stack([matrices[i] for i in members]),
-                group_lines,
-                cases,
-                spanned,
-            ),
-            strict=True,
-        ):
-            demands[i] = demand
-    return tuple(d for d in demands if d is not None)
+    return line, first
+
+
+def element_shears(
+    project: Project, floors: tuple[FloorMass, ...], matrices: Sequence[FloatArray], displacements: FloatArray
+) -> list[FloatArray]:
+    """Per element, its (columns, storeys spanned) shear along its line for each column of
+    ``displacements`` (3N, columns), kN: the modal or wind responses, where no case record exists."""
+    if not project.elements:
+        return []
+    line, first = element_lines(project, floors, displacements)
+    return [
+        sums_from_top(matrices[i] @ line[first[i] : first[i + 1]], axis=0).T for i in range(len(project.elements))
+    ]
 
 
 def _span_group_demands(
@@ -340,9 +405,11 @@ def _span_group_demands(
     lines: FloatArray,
     cases: tuple[CaseResult, ...],
     spanned: slice,
+    factors: FloatArray,
 ) -> list[ElementDemand]:
     """The demands of elements that span the same storeys, together: ``matrices`` (G, n, n) and
-    ``lines`` (G, n, cases), their floors' displacements along their lines relative to their bottom."""
+    ``lines`` (G, n, cases), their floors' displacements along their lines relative to their bottom;
+    ``factors`` (n, cases) the P-Δ factors of their storeys."""
     n = matrices.shape[1]
     floor_forces = matrices @ lines  # (G, n, cases): one product per element
     shears = np.ascontiguousarray(sums_from_top(floor_forces, axis=1).transpose(0, 2, 1))  # (G, cases, n)
@@ -351,9 +418,13 @@ def _span_group_demands(
     along = directions[:, axis]  # (G, cases)
     storey_shears = np.array([r.storey_shears[spanned] for r in cases]).reshape(len(cases), n)
     shares = element_shares(shears, along, storey_shears)
+    amplified = bool(np.any(factors != 1.0))
+    if amplified:
+        shears = shears * factors.T[None]
     z = np.cumsum([level.height for level in project.levels[spanned]])
     if len(cases):
-        base_moments = np.abs(np.einsum("f,gfc->gc", z, floor_forces)).max(axis=1).tolist()
+        moments = np.abs(np.einsum("f,gfc->gc", z, floor_forces)) * factors.max(axis=0)[None]
+        base_moments = moments.max(axis=1).tolist()
         shear_envelopes = np.abs(shears).max(axis=1)
         share_envelopes = shares.max(axis=1)
     else:
@@ -369,7 +440,10 @@ def _span_group_demands(
         if isinstance(element.properties, BracedFrame) and len(cases):
             # Rounded to 1 µm like the element cache, so a drag's rounding noise still hits the cache.
             influence = brace_influence(element.properties, round(element.length, 6), heights)
-            braces = np.abs(np.einsum("sbf,fc->csb", influence, lines[g])).max(axis=0)
+            forces = np.einsum("sbf,fc->csb", influence, lines[g])
+            if amplified:
+                forces = forces * factors.T[:, :, None]
+            braces = np.abs(forces).max(axis=0)
         braces.setflags(write=False)
         out.append(
             ElementDemand(

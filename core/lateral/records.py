@@ -25,6 +25,8 @@ class CheckGroup(StrEnum):
     DRIFT = "drift"
     REGULARITY = "regularity"
     MODES = "modes"
+    METHOD = "analysis method"
+    STABILITY = "second-order effects"
 
 
 class Check(StrEnum):
@@ -40,6 +42,8 @@ class Check(StrEnum):
     DRIFT = "storey drift ratio"
     TORSION_MODE_ORDER = "first rotational mode"
     TORSION_PERIOD_RATIO = "rotational over translational period"
+    STATIC_METHOD = "lateral force method applies"
+    STABILITY = "P-Δ stability coefficient θ"
 
     @property
     def group(self) -> CheckGroup:
@@ -56,6 +60,8 @@ _GROUPS = {
     Check.DRIFT: CheckGroup.DRIFT,
     Check.TORSION_MODE_ORDER: CheckGroup.MODES,
     Check.TORSION_PERIOD_RATIO: CheckGroup.MODES,
+    Check.STATIC_METHOD: CheckGroup.METHOD,
+    Check.STABILITY: CheckGroup.STABILITY,
 }
 
 
@@ -215,6 +221,16 @@ class StoreyLateral:
     mass_ratio: tuple[float | None, float | None]
     """Floor mass over that of the floor below and of the floor above; None where there is no
     such floor or it has no mass."""
+    gravity_load: float = 0.0
+    """P-Δ gravity load at and above this storey, kN (``Settings.gravity_factor`` × seismic weight)."""
+    stability_coefficient: tuple[float, float] = (0.0, 0.0)
+    """θ in x and y by the rule set's definition (EN 1998-1 §4.4.2.2(2) P_tot·d_r/(V_tot·h);
+    ASCE 7-16 §12.8.7 Eq. 12.8-16 P_x·Δ·I_e/(V_x·h_sx·C_d)), from the worst design drift and the
+    static storey shear."""
+    p_delta_factor: tuple[float, float] = (1.0, 1.0)
+    """1/(1 − θ) where θ is above the code's threshold for ignoring P-Δ, else 1; it multiplies the
+    storey's judged drifts and the element demands in it (at θ beyond the code's upper limit, the
+    factor of that limit: the verdict fails anyway)."""
 
 
 @dataclass(frozen=True)

@@ -66,6 +66,7 @@ BOUNDS: dict[str, Bound] = {
     "accidental_eccentricity": Bound(0.0, 0.5, ""),
     "drift_limit": Bound(1.0e-4, 0.1, ""),
     "drift_reduction": Bound(0.01, 1.0, ""),
+    "gravity_factor": Bound(0.1, 5.0, ""),
 }
 """Range of each kind of number (the row names are what :func:`within` takes)."""
 

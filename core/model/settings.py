@@ -77,6 +77,10 @@ class Eurocode8Spectrum:
         within(self.lower_bound, "lower_bound_factor", "lower_bound")
 
 
+SEISMIC_DESIGN_CATEGORIES = ("A", "B", "C", "D", "E", "F")
+"""ASCE 7-16 §11.6."""
+
+
 @dataclass(frozen=True)
 class Asce7Spectrum:
     """ASCE 7 §11.4 design spectrum and §12.8 base-shear parameters."""
@@ -92,8 +96,15 @@ class Asce7Spectrum:
     """I_e."""
     deflection_amplification: float = 5.0
     """C_d."""
+    design_category: str = "D"
+    """Seismic design category A–F (§11.6): which analysis methods Table 12.6-1 permits."""
 
     def __post_init__(self) -> None:
+        require(
+            self.design_category in SEISMIC_DESIGN_CATEGORIES,
+            "design_category",
+            f"must be one of {', '.join(SEISMIC_DESIGN_CATEGORIES)}, got {self.design_category!r}",
+        )
         within(self.sds, "spectral_acceleration", "sds")
         within(self.sd1, "spectral_acceleration", "sd1")
         within(self.s1, "spectral_acceleration_s1", "s1")
@@ -127,6 +138,10 @@ class Settings:
     drift_reduction: float = 0.5
     """ν of EN 1998-1 §4.4.3.2(2), applied to the design drift under the EN 1998 rule set
     (recommended 0.5 for importance classes I and II, 0.4 for III and IV)."""
+    gravity_factor: float = 1.0
+    """Gravity load above each storey for the P-Δ stability coefficient, over the seismic weight
+    above it (EN 1998-1 §4.4.2.2(2) P_tot, ASCE 7-16 §12.8.7 P_x: the load of the seismic design
+    situation; 1 takes the seismic weight itself)."""
 
     def __post_init__(self) -> None:
         require(
@@ -141,6 +156,7 @@ class Settings:
         if self.drift_limit is not None:
             within(self.drift_limit, "drift_limit", "drift_limit")
         within(self.drift_reduction, "drift_reduction", "drift_reduction")
+        within(self.gravity_factor, "gravity_factor", "gravity_factor")
 
 
 RETIRED_FIELDS: dict[type, frozenset[str]] = {

@@ -14,7 +14,8 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Any
 
-from core.lateral.records import ModeOrder, StoreyLateral, Verdict
+from core.lateral.p_delta import StabilityLimits
+from core.lateral.records import ModeOrder, StaticLoad, StoreyLateral, Verdict
 from core.model import LoadMethod, Settings
 
 
@@ -59,6 +60,17 @@ class CodeRules:
     def judge(self, settings: Settings, storeys: Sequence[StoreyLateral], order: ModeOrder) -> tuple[Verdict, ...]:
         """Every verdict of this set for the figures of one analysis."""
         raise NotImplementedError
+
+    def method_limits(
+        self, settings: Settings, loads: Sequence[StaticLoad], storeys: Sequence[StoreyLateral], height: float
+    ) -> tuple[Verdict, ...]:
+        """Whether the code lets the equivalent static (lateral force) method stand for this
+        building, per direction, and why not (none if the set has no such rule)."""
+        return ()
+
+    def stability_limits(self, settings: Settings) -> StabilityLimits | None:
+        """The P-Δ thresholds on θ (None: the set judges no P-Δ and amplifies nothing)."""
+        return None
 
     def drift_reduction(self, settings: Settings) -> float:
         """The factor on design drifts before they meet the limit (1 unless the code has one)."""

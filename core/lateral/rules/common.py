@@ -10,6 +10,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 
 from core.lateral.cases import DIRECTIONS
+from core.lateral.p_delta import StabilityLimits
 from core.lateral.records import Check, ModeOrder, Status, StoreyLateral, Verdict
 
 NO_CODE = "No code clause: EN 1998-1 and ASCE 7-16 set no such limit; a rule of thumb of concept design"
@@ -131,6 +132,11 @@ def drift(
     )
 
 
+def p_delta_words(factor: float) -> str:
+    """What a drift verdict adds when P-Δ amplifies the drift (nothing when it does not)."""
+    return "" if factor == 1.0 else f" × 1/(1 − θ) = {factor:.3g} for P-Δ"
+
+
 def mode_order(order: ModeOrder, limits: ModeLimits) -> list[Verdict]:
     """The first rotation-dominated mode should come after both translational ones, and its period
     should be clearly shorter than theirs."""
@@ -154,3 +160,56 @@ def mode_order(order: ModeOrder, limits: ModeLimits) -> list[Verdict]:
             note="period of the first rotation-dominated mode over the longest translational period.",
         ),
     ]
+
+
+def vertical_irregularities(storeys: Sequence[StoreyLateral], limits: RegularityLimits) -> list[str]:
+    """What makes the building irregular in elevation by the stiffness and mass thresholds of
+    ``limits``, in words ("soft storey 3 in x", "heavy floor 5"); empty if nothing does."""
+    out = []
+    for s in storeys:
+        for i, d in enumerate(DIRECTIONS):
+            above, average = s.stiffness_ratio_above[i], s.stiffness_ratio_average[i]
+            if (above is not None and above < limits.soft_storey[0]) or (
+                average is not None and average < limits.soft_storey[1]
+            ):
+                out.append(f"soft storey {s.storey} in {d}")
+        top = s.storey == len(storeys)
+        ratios = [r for r in (s.mass_ratio[0], None if top else s.mass_ratio[1]) if r is not None]
+        if ratios and max(ratios) > limits.mass_ratio:
+            out.append(f"heavy floor {s.storey}")
+    return out
+
+
+def stability(storeys: Sequence[StoreyLateral], limits: StabilityLimits) -> list[Verdict]:
+    """The P-Δ verdict of each storey and direction: ignored, amplified by 1/(1 − θ), a second-order
+    analysis needed, or not allowed."""
+    out = []
+    for s in storeys:
+        for i, d in enumerate(DIRECTIONS):
+            theta = s.stability_coefficient[i]
+            if theta <= limits.ignore:
+                status, note = Status.PASS, f"θ ≤ {limits.ignore:g}: second-order effects need not be considered."
+            elif theta <= limits.amplify:
+                status = Status.PASS
+                note = f"drifts and element demands of this storey are multiplied by 1/(1 − θ) = {1 / (1 - theta):.3g}."
+            elif theta <= limits.upper:
+                status = Status.WARN
+                note = (
+                    f"θ above {limits.amplify:g}: a second-order analysis is needed; 1/(1 − θ) = "
+                    f"{1 / (1 - theta):.3g} is applied as an estimate."
+                )
+            else:
+                status, note = Status.FAIL, f"θ above {limits.upper:g} is not allowed: the storey is too flexible."
+            out.append(
+                Verdict(
+                    name=Check.STABILITY,
+                    value=theta,
+                    limit=limits.upper,
+                    status=status,
+                    clause=limits.clause,
+                    storey=s.storey,
+                    direction=d,
+                    note=note,
+                )
+            )
+    return out

@@ -9,7 +9,9 @@ from __future__ import annotations
 from collections.abc import Sequence
 from dataclasses import dataclass, field
 
-from core.lateral.records import Check, ModeOrder, Status, StoreyLateral, Verdict
+from core.lateral.loads import ground_parameters
+from core.lateral.p_delta import StabilityLimits
+from core.lateral.records import Check, ModeOrder, StaticLoad, Status, StoreyLateral, Verdict
 from core.lateral.rules import common
 from core.lateral.rules.base import CodeRules, DriftLimit
 from core.model import LoadMethod, RuleSet, Settings
@@ -33,6 +35,20 @@ class En1998Parameters:
         )
     )
     modes: common.ModeLimits = field(default_factory=common.ModeLimits)
+    static_period_corner_factor: float = 4.0
+    """§4.3.3.2.1(2)a: T_1 ≤ 4·T_C …"""
+    static_period_limit: float = 2.0
+    """… and T_1 ≤ 2.0 s."""
+    stability: StabilityLimits = field(
+        default_factory=lambda: StabilityLimits(
+            ignore=0.10,
+            amplify=0.20,
+            upper=0.30,
+            drift_factor=1.0,
+            clause="EN 1998-1 §4.4.2.2(2)–(4): θ = P_tot·d_r/(V_tot·h) ≤ 0.10 ignored, "
+            "≤ 0.20 × 1/(1 − θ), ≤ 0.30",
+        )
+    )
 
 
 DRIFT_LIMITS = (
@@ -59,13 +75,54 @@ class En1998Rules(CodeRules):
         clause = f"EN 1998-1 §4.4.3.2(1): ν·d_r ≤ limit·h, ν = {nu:g} (§4.4.3.2(2)); d_r = q·d_e (§4.3.4)"
         for s in storeys:
             for i in range(2):
-                reduced = nu * s.drift_ratio[i]
-                where = "at the mass centre"
+                reduced = nu * s.drift_ratio[i] * s.p_delta_factor[i]
+                where = "at the mass centre" + common.p_delta_words(s.p_delta_factor[i])
                 verdicts.append(
                     common.drift(s, i, reduced, limit, clause, where, quantity="reduced design drift ν·d_r")
                 )
+        verdicts.extend(common.stability(storeys, self.parameters.stability))
         verdicts.extend(common.mode_order(order, self.parameters.modes))
         return tuple(verdicts)
+
+    def stability_limits(self, settings: Settings) -> StabilityLimits:
+        return self.parameters.stability
+
+    def method_limits(
+        self, settings: Settings, loads: Sequence[StaticLoad], storeys: Sequence[StoreyLateral], height: float
+    ) -> tuple[Verdict, ...]:
+        """§4.3.3.2.1(2): the lateral force method needs T_1 ≤ min(4·T_C, 2.0 s) in both main
+        directions (T_C of the project's EN 1998-1 spectrum) and regularity in elevation (§4.2.3.3,
+        judged here by the storey stiffness and mass criteria)."""
+        p = self.parameters
+        tc = ground_parameters(settings.eurocode8).tc
+        limit = min(p.static_period_corner_factor * tc, p.static_period_limit)
+        irregular = common.vertical_irregularities(storeys, p.regularity)
+        out = []
+        for load in loads:
+            period = load.modal_period
+            reasons = []
+            if period > limit:
+                reasons.append(f"T_1 = {period:.3g} s exceeds min(4·T_C, 2.0 s) = {limit:.3g} s")
+            if irregular:
+                reasons.append("not regular in elevation (" + ", ".join(irregular[:3]) + ")")
+            note = (
+                "; ".join(reasons) + ": the lateral force method does not apply; use the modal response "
+                "spectrum analysis (§4.3.3.3)."
+                if reasons
+                else f"T_1 = {period:.3g} s ≤ {limit:.3g} s and regular in elevation: the lateral force method applies."
+            )
+            out.append(
+                Verdict(
+                    name=Check.STATIC_METHOD,
+                    value=period,
+                    limit=limit,
+                    status=Status.FAIL if reasons else Status.PASS,
+                    clause="EN 1998-1 §4.3.3.2.1(2): T_1 ≤ min(4·T_C, 2.0 s) and regular in elevation (§4.2.3.3)",
+                    direction=load.direction,
+                    note=note,
+                )
+            )
+        return tuple(out)
 
     def drift_reduction(self, settings: Settings) -> float:
         """ν of §4.4.3.2(2), the project's (recommended 0.5 for importance classes I and II, 0.4
