@@ -54,7 +54,7 @@ def test_en1998_period_limit_is_four_corner_periods_on_stiff_ground():
 
 
 def test_asce7_tells_the_60_level_model_the_static_method_is_not_permitted():
-    results, verdicts = method_verdicts(tall_shear_building(), rule_set=RuleSet.ASCE7, load_method=LoadMethod.ASCE7)
+    _results, verdicts = method_verdicts(tall_shear_building(), rule_set=RuleSet.ASCE7, load_method=LoadMethod.ASCE7)
     for v in verdicts:
         # Table 12.6-1, SDC D: taller than 160 ft with T ≥ 3.5·T_s (T_s = 0.6/1.0 s) → not permitted.
         assert v.status is Status.FAIL and v.limit == pytest.approx(3.5 * 0.6)
@@ -70,7 +70,7 @@ def test_asce7_seismic_design_category_c_permits_it():
 
 @pytest.mark.parametrize("rule_set", list(RuleSet))
 def test_a_regular_four_storey_building_is_told_the_static_method_applies(rule_set):
-    results, verdicts = method_verdicts(regular_four_storey(), rule_set=rule_set)
+    _results, verdicts = method_verdicts(regular_four_storey(), rule_set=rule_set)
     assert len(verdicts) == 2
     assert all(v.status is Status.PASS for v in verdicts), [v.note for v in verdicts]
     assert all(v.value < 0.5 for v in verdicts)

@@ -19,7 +19,6 @@ from core.arrays import FloatArray, frozen_array, sums_from_top
 from core.elements import member_forces
 from core.lateral.cases import DIRECTIONS
 from core.lateral.centres import StoreyStiffness, no_twist_offsets, storey_properties, storey_stiffnesses
-from core.lateral.p_delta import StabilityLimits, amplification, gravity_loads, stability_coefficients
 from core.lateral.loads import (
     accidental_eccentricities,
     case_load_vector,
@@ -27,11 +26,12 @@ from core.lateral.loads import (
     static_load,
     vertical_distribution,
 )
+from core.lateral.p_delta import StabilityLimits, amplification, gravity_loads, stability_coefficients
 from core.lateral.records import (
     CaseResult,
-    StaticLoad,
     ElementDemand,
     LateralResults,
+    StaticLoad,
     StoreyLateral,
 )
 from core.lateral.response import (

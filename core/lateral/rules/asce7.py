@@ -8,8 +8,8 @@ from dataclasses import dataclass, field
 
 from core.lateral.cases import DIRECTIONS
 from core.lateral.p_delta import StabilityLimits
-from core.lateral.response import drift_amplification
 from core.lateral.records import Check, ModeOrder, StaticLoad, Status, StoreyLateral, Verdict
+from core.lateral.response import drift_amplification
 from core.lateral.rules import common
 from core.lateral.rules.base import CodeRules, DriftLimit
 from core.model import LoadMethod, RuleSet, Settings
