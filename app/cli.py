@@ -1,7 +1,8 @@
 """The ``poise`` command: open the editor, or analyse a project file in the terminal.
 
 ``poise [FILE]`` opens the editor (on a bundled sample without FILE); ``poise analyse FILE`` prints a
-readable summary, ``--json`` the documented JSON of :mod:`core.report.summary`. Bad input ends with exit
+readable summary, ``--json`` the documented JSON of :mod:`core.report.summary`; ``map`` and
+``suggest`` are in :mod:`app.guidance.cli`. Bad input ends with exit
 status 2 and a one-line message on standard error, never a traceback.
 """
 
@@ -32,6 +33,8 @@ def _analyse_parser() -> argparse.ArgumentParser:
 COMMANDS = {
     "analyse": "analyse FILE [--json]: print the results of a project (or their JSON)",
     "sheet": "sheet FILE -o OUT.pdf [--level N] [--paper a4|letter] [--landscape]: write the one-page sheet",
+    "map": "map FILE --element ID [--measure M] [--csv OUT.csv | --png OUT.png]: where the element could stand",
+    "suggest": "suggest FILE --element ID [--measure M] [--on outline|edges|grid]: where to move the element",
 }
 """The commands besides opening the editor, with the help line of each (``poise COMMAND --help`` tells more)."""
 
@@ -73,6 +76,12 @@ def main(argv: Sequence[str] | None = None) -> int:
             from app.sheet_cli import run_sheet, sheet_parser
 
             return run_sheet(sheet_parser().parse_args(args[1:]))
+        if args and args[0] in ("map", "suggest"):
+            from app.guidance import cli as guidance_cli
+
+            if args[0] == "map":
+                return guidance_cli.run_map(guidance_cli.map_parser().parse_args(args[1:]))
+            return guidance_cli.run_suggest(guidance_cli.suggest_parser().parse_args(args[1:]))
         arguments = _editor_parser().parse_args(args)
         if arguments.file is not None and not arguments.file.is_file():
             raise ModelError("", f"no such project file: {arguments.file}")

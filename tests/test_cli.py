@@ -62,7 +62,7 @@ def test_help_lists_every_command_with_its_purpose(capsys):
     with pytest.raises(SystemExit):
         main(["--help"])
     text = capsys.readouterr().out
-    assert set(COMMANDS) == {"analyse", "sheet"}
+    assert set(COMMANDS) == {"analyse", "sheet", "map", "suggest"}
     for name in COMMANDS:
         assert f"poise {name}" in text
 

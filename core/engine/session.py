@@ -96,9 +96,10 @@ class AnalysisSession:
         """Entries the last K update took out: their storey rows go out of the storey matrices too."""
 
     def analyse(self, project: Project) -> Results:
-        """Masses, stiffness and modes of ``project``; raises AnalysisError if it cannot stand."""
+        """Masses, stiffness and modes of ``project`` without its switched-off elements; raises
+        AnalysisError if it cannot stand."""
         with self._lock, one_blas_thread():
-            return self._guarded(project)
+            return self._guarded(project.active_part())
 
     def _guarded(self, project: Project) -> Results:
         """:meth:`_analyse`; an unexpected failure part-way may leave the kept state half
@@ -113,6 +114,7 @@ class AnalysisSession:
 
     def analyse_keeping(self, project: Project) -> tuple[Results, list[KeptElement]]:
         """:meth:`analyse`, and what the session keeps of each element (for the what-if)."""
+        project = project.active_part()
         with self._lock, one_blas_thread():
             results = self._guarded(project)
             return results, [self._kept[e.id] for e in project.elements]

@@ -75,8 +75,10 @@ def element_positions(
     project: Project, element_id: str, midpoints: npt.ArrayLike, session: AnalysisSession | None = None
 ) -> PositionFigures:
     """The figures of ``project`` with element ``element_id`` moved to each of ``midpoints``
-    (P, 2). ``project`` itself must analyse (AnalysisError otherwise)."""
+    (P, 2). ``project`` itself must analyse (AnalysisError otherwise); its switched-off elements
+    are left out, and ``element_id`` must be an active one."""
     session = session or AnalysisSession()
+    project = project.active_part()
     centres_xy = np.asarray(midpoints, dtype=float).reshape(-1, 2)
     results, kept = session.analyse_keeping(project)
     index = [e.id for e in project.elements].index(element_id)

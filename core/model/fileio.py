@@ -40,7 +40,9 @@ from core.model.bounds import FILE_SIZE, NESTING
 from core.model.settings import RETIRED_FIELDS
 
 FORMAT_TAG = "poise-project"
-FORMAT_VERSION = 1
+FORMAT_VERSION = 2
+"""1: the first format. 2: an element may be switched off (``"active": false``); a version 1 file
+has no such field, so every element of it is active (the field's default) and it loads unchanged."""
 UNITS = {"length": "m", "force": "kN", "mass": "t", "time": "s", "area load": "kPa", "modulus": "kPa"}
 BACKUP_SUFFIX = ".bak"
 
@@ -67,6 +69,7 @@ def _encode_element(element: Element) -> dict[str, Any]:
         "bottom": element.bottom,
         "top": element.top,
         "properties": _encode(element.properties),
+        **({} if element.active else {"active": False}),
     }
 
 
@@ -221,6 +224,7 @@ class _ElementFields:
     end: tuple[float, float]
     bottom: int
     top: int
+    active: bool = True
 
 
 def project_from_dict(document: Any) -> Project:

@@ -12,7 +12,7 @@ the same validation, so an invalid value is refused whole and never half-applied
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 
 from core.errors import ModelError
 from core.model.bounds import count, text, within
@@ -40,9 +40,12 @@ class Element:
     bottom: int
     top: int
     properties: ElementProperties = field(default_factory=BracedFrame)
+    active: bool = True
+    """False: switched off — kept in the file and drawn faded, but left out of the analysis."""
 
     def __post_init__(self) -> None:
         text(self.id, "id")
+        require(isinstance(self.active, bool), "active", "must be true or false")
         require(bool(self.id.strip()), "id", "must not be empty")
         finite_point(self.start, "start")
         finite_point(self.end, "end")
@@ -173,6 +176,12 @@ class Project:
             if element.id == element_id:
                 return element
         raise KeyError(element_id)
+
+    def active_part(self) -> Project:
+        """The project as analysed: without its switched-off elements (itself if there are none)."""
+        if all(e.active for e in self.elements):
+            return self
+        return replace(self, elements=tuple(e for e in self.elements if e.active))
 
     def elements_in_storey(self, storey: int) -> tuple[Element, ...]:
         """Elements that span storey ``storey`` (1-based: storey j lies below ``levels[j-1]``)."""
