@@ -25,6 +25,7 @@ from app.drawing_tools import install as install_drawing_tools
 from app.edit_actions import install as install_edit_actions
 from app.exchange.actions import install as install_exchange
 from app.file_actions import install as install_file_actions
+from app.guidance import install as install_guidance
 from app.level_actions import install as install_level_actions
 from app.mode_views.panel import install as install_mode_views
 from app.panels.levels import LevelsPanel
@@ -89,6 +90,7 @@ class MainWindow(QMainWindow):
         self._connect()
         install_mode_views(self)
         self.exchange = install_exchange(self)
+        self.guidance = install_guidance(self)
         self._stack_bottom_panels()
         self._restore_settings()
         self.drawing.set_tool("select")

@@ -19,10 +19,11 @@ from core.errors import AnalysisError
 from core.guidance.gradients import move_gradients
 from core.guidance.measures import LIMITS, Measure, results_value
 from core.guidance.position_map import MapCancelledError, position_map, with_candidate
-from core.guidance.robustness import compare, loss_ranking, switched
+from core.guidance.robustness import compare, loss_ranking
 from core.guidance.suggestion import Constraint, suggest
 from core.guidance.target_zone import target_zones
 from core.model import BracedFrame, Element, Level, Project
+from core.model.edits import switch_elements
 from core.model.fileio import dumps, load_project, loads
 
 SAMPLES = Path(__file__).resolve().parent.parent / "sample_projects"
@@ -209,7 +210,7 @@ def test_target_zone_of_one_storey_matches_a_full_analysis() -> None:
 
 def test_switched_off_element_round_trips_and_analyses_as_deleted() -> None:
     project = load_project(RESIDENTIAL)
-    off = switched(project, "W2", False)
+    off = switch_elements(project, ["W2"], False)
     again = loads(dumps(off))
     assert again == off and not again.element("W2").active and '"active": false' in dumps(off)
     older = dumps(project).replace('"version": 2', '"version": 1')

@@ -22,6 +22,7 @@ from core.arrays import FloatArray
 from core.engine.session import AnalysisSession
 from core.engine.whatif import element_positions
 from core.guidance.measures import Measure, position_values
+from core.guidance.position_map import MapCancelledError, Progress, StopAsked
 from core.model import Project
 
 RELATIVE_STEP = 1e-4
@@ -39,17 +40,31 @@ class MoveGradient:
     """d(worst torsion ratio)/d(move) along the normal and along the line, 1/m."""
     measure: tuple[float, float]
     """The same for the chosen measure."""
-    one_sided: bool
-    """True where the element cannot move both ways along its normal (it stands on an edge)."""
+    inward: int
+    """0 where the element may move both ways along its normal; +1 or −1 where it stands on an
+    outline edge and only that sense of the normal keeps it on the floor (the derivative is then
+    one-sided, toward that side)."""
+
+    @property
+    def one_sided(self) -> bool:
+        return self.inward != 0
+
+    @property
+    def blocked(self) -> bool:
+        """The measure falls only by moving off the floor: the element is best where it is."""
+        return self.inward * self.measure[0] > 0
 
     @property
     def benefit(self) -> float:
-        """How fast the best move lowers the chosen measure, 1/m (the gradient's length)."""
-        return float(np.hypot(*self.measure))
+        """How fast the best possible move lowers the chosen measure, 1/m (the gradient's length;
+        0 for an element on an edge whose only helpful move would leave the floor)."""
+        return 0.0 if self.blocked else float(np.hypot(*self.measure))
 
     @property
     def helps(self) -> tuple[float, float]:
-        """(dx, dy) per metre of the move down the chosen measure's gradient."""
+        """(dx, dy) per metre of the move down the chosen measure's gradient (0 when blocked)."""
+        if self.blocked:
+            return 0.0, 0.0
         gn, ga = self.measure
         return (
             -(gn * self.normal[0] + ga * self.along[0]),
@@ -67,12 +82,21 @@ def move_gradients(
     measure: Measure = Measure.TORSION_RATIO,
     step: float | None = None,
     session: AnalysisSession | None = None,
+    progress: Progress | None = None,
+    stop: StopAsked | None = None,
 ) -> list[MoveGradient]:
     """The derivatives of every active element of ``project`` (which must analyse), ranked by
-    benefit, largest first."""
+    benefit, largest first; ``progress`` and ``stop`` as for :func:`position_map`, per element."""
     session = session or AnalysisSession()
     h = step if step is not None else RELATIVE_STEP * _plan_size(project)
-    gradients = [_gradient(project, e.id, measure, h, session) for e in project.elements if e.active]
+    active = [e.id for e in project.elements if e.active]
+    gradients = []
+    for done, element_id in enumerate(active, start=1):
+        if stop is not None and stop():
+            raise MapCancelledError
+        gradients.append(_gradient(project, element_id, measure, h, session))
+        if progress is not None:
+            progress(done, len(active))
     return sorted(gradients, key=lambda g: -g.benefit)
 
 
@@ -88,14 +112,15 @@ def _gradient(project: Project, element_id: str, measure: Measure, h: float, ses
     figures = element_positions(project, element_id, points, session)
     torsion = position_values(figures, Measure.TORSION_RATIO).reshape(2, 5)
     chosen = position_values(figures, measure).reshape(2, 5)
-    one_sided = not bool(np.isfinite(torsion[0]).all())
+    stands = np.isfinite(torsion[0])
+    inward = 0 if stands.all() else (1 if stands[3:].all() else (-1 if stands[:2].all() else 0))
     return MoveGradient(
         element_id=element_id,
         normal=(float(normal[0]), float(normal[1])),
         along=(float(along[0]), float(along[1])),
         torsion_ratio=(_derivative(torsion[0], h), _derivative(torsion[1], h)),
         measure=(_derivative(chosen[0], h), _derivative(chosen[1], h)),
-        one_sided=one_sided,
+        inward=inward,
     )
 
 

@@ -8,21 +8,16 @@ project with it deleted (the analysis leaves switched-off elements out).
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, replace
+from dataclasses import dataclass
 
 from core.analysis import analyse
-from core.errors import AnalysisError
+from core.engine.session import AnalysisSession
+from core.errors import AnalysisError, ModelError
+from core.guidance.position_map import MapCancelledError, Progress, StopAsked
 from core.lateral.cases import DIRECTIONS
 from core.model import Project
+from core.model.edits import switch_elements
 from core.results import Results
-
-
-def switched(project: Project, element_id: str, active: bool) -> Project:
-    """``project`` with element ``element_id`` switched on or off."""
-    return replace(
-        project,
-        elements=tuple(replace(e, active=active) if e.id == element_id else e for e in project.elements),
-    )
 
 
 @dataclass(frozen=True)
@@ -47,11 +42,12 @@ class Outcome:
         return max((max(s.drift_ratio) for s in self.results.lateral.storeys), default=0.0)
 
 
-def outcome(project: Project) -> Outcome:
-    """Analyse ``project``; a layout that cannot stand gives its reason instead of raising."""
+def outcome(project: Project, session: AnalysisSession | None = None) -> Outcome:
+    """Analyse ``project`` (on ``session``, else through :func:`core.analysis.analyse`); a layout
+    that cannot stand gives its reason instead of raising."""
     try:
-        return Outcome(analyse(project))
-    except AnalysisError as error:
+        return Outcome(session.analyse(project) if session is not None else analyse(project))
+    except (AnalysisError, ModelError) as error:
         return Outcome(None, str(error))
 
 
@@ -64,12 +60,12 @@ class Comparison:
     without_element: Outcome
 
 
-def compare(project: Project, element_id: str) -> Comparison:
+def compare(project: Project, element_id: str, session: AnalysisSession | None = None) -> Comparison:
     """The layout with the element switched on and with it switched off."""
     return Comparison(
         element_id,
-        outcome(switched(project, element_id, True)),
-        outcome(switched(project, element_id, False)),
+        outcome(switch_elements(project, [element_id], True), session),
+        outcome(switch_elements(project, [element_id], False), session),
     )
 
 
@@ -89,17 +85,26 @@ class Loss:
     """Why the layout without it cannot stand, if it cannot."""
 
 
-def loss_ranking(project: Project) -> list[Loss]:
+def loss_ranking(
+    project: Project,
+    session: AnalysisSession | None = None,
+    progress: Progress | None = None,
+    stop: StopAsked | None = None,
+) -> list[Loss]:
     """Each active element's loss, the most harmful first: layouts that no longer stand, then by
-    the larger of the torsion ratio's and the drift's increase."""
-    base = outcome(project)
+    the larger of the torsion ratio's and the drift's increase (``progress``, ``stop`` per element,
+    as for :func:`core.guidance.position_map.position_map`)."""
+    base = outcome(project, session)
     if base.results is None:
         raise AnalysisError(base.error or "the layout cannot be analysed")
     losses = []
-    for element in project.elements:
-        if not element.active:
-            continue
-        without = outcome(switched(project, element.id, False))
+    active = [e for e in project.elements if e.active]
+    for done, element in enumerate(active, start=1):
+        if stop is not None and stop():
+            raise MapCancelledError
+        without = outcome(switch_elements(project, [element.id], False), session)
+        if progress is not None:
+            progress(done, len(active))
         torsion, drift = without.worst_torsion_ratio, without.worst_drift_ratio
         losses.append(
             Loss(

@@ -24,6 +24,7 @@ from dataclasses import dataclass
 import numpy as np
 from scipy.optimize import brentq
 
+from core.arrays import FloatArray
 from core.guidance.measures import ECCENTRICITY_LIMIT, LIMITS, Measure
 from core.lateral.cases import DIRECTIONS
 from core.lateral.response import end_ratio, extreme_points
@@ -62,13 +63,15 @@ class StoreyZone:
         return x + a, y + c, x + b, y + d
 
 
-def target_zones(project: Project, results: Results) -> list[StoreyZone]:
-    """The zone of every storey of the analysed ``project``."""
+def target_zones(project: Project, results: Results, storeys: list[int] | None = None) -> list[StoreyZone]:
+    """The zone of every storey of the analysed ``project`` (or of the 1-based ``storeys``)."""
     lateral = results.lateral
     limit = LIMITS[Measure.TORSION_RATIO].value
     ends = {d: extreme_points(project, d) for d in DIRECTIONS}
     zones = []
     for j, storey in enumerate(lateral.storeys):
+        if storeys is not None and storey.storey not in storeys:
+            continue
         kx, ky = storey.lateral_stiffness
         k_theta = storey.torsional_stiffness
         rx, ry = storey.torsional_radius
@@ -89,28 +92,28 @@ def target_zones(project: Project, results: Results) -> list[StoreyZone]:
     return zones
 
 
-def storey_torsion_ratio(k: float, k_theta: float, e_a: float, ends: np.ndarray, offset: float) -> float:
-    """The worst end ratio over ±e_a of one rigid storey whose centre of rigidity sits ``offset``
-    from the mass centre across the load; ``ends`` are the two extreme points' offsets."""
-    worst = 1.0
+def storey_torsion_ratio(k: float, k_theta: float, e_a: float, ends: FloatArray, offsets: FloatArray) -> FloatArray:
+    """The worst end ratio over ±e_a of one rigid storey whose centre of rigidity sits at each of
+    ``offsets`` from the mass centre across the load; ``ends`` are the two extreme points' offsets."""
+    offsets = np.asarray(offsets, dtype=float)[..., None]
+    worst = np.ones(offsets.shape[:-1])
     for sign in (1.0, -1.0):
-        theta = (sign * e_a - offset) / k_theta
-        drifts = 1.0 / k + theta * (ends - offset)
-        worst = max(worst, float(end_ratio(drifts)))
+        theta = (sign * e_a - offsets) / k_theta
+        worst = np.maximum(worst, end_ratio(1.0 / k + theta * (ends - offsets)))
     return worst
 
 
-def _torsion_interval(k: float, k_theta: float, e_a: float, ends: np.ndarray, limit: float) -> Interval | None:
+def _torsion_interval(k: float, k_theta: float, e_a: float, ends: FloatArray, limit: float) -> Interval | None:
     """The offsets around the mass centre where :func:`storey_torsion_ratio` ≤ ``limit``: the run
     of sampled offsets that meet it nearest to the mass centre, its ends found by root finding."""
     span = float(np.ptp(ends)) or 1.0
     offsets = np.linspace(-span, span, SAMPLES)
 
     def excess(offset: float) -> float:
-        value = storey_torsion_ratio(k, k_theta, e_a, ends, offset)
+        value = float(storey_torsion_ratio(k, k_theta, e_a, ends, np.array(offset)))
         return (value if math.isfinite(value) else 1e6) - limit
 
-    meets = np.array([excess(float(o)) <= 0 for o in offsets])
+    meets = storey_torsion_ratio(k, k_theta, e_a, ends, offsets) <= limit
     if not meets.any():
         return None
     centre = int(np.argmin(np.where(meets, np.abs(offsets), np.inf)))

@@ -77,6 +77,15 @@ def replace_elements(project: Project, changed: Iterable[Element]) -> Project:
     return dataclasses.replace(project, elements=tuple(by_id.get(e.id, e) for e in project.elements))
 
 
+def switch_elements(project: Project, ids: Iterable[str], active: bool) -> Project:
+    """``project`` with the elements ``ids`` switched on or off (kept in the project either way)."""
+    wanted = set(ids)
+    return dataclasses.replace(
+        project,
+        elements=tuple(dataclasses.replace(e, active=active) if e.id in wanted else e for e in project.elements),
+    )
+
+
 def _point(p: tuple[float, float]) -> Point:
     return (float(p[0]), float(p[1]))
 
