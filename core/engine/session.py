@@ -94,6 +94,8 @@ class AnalysisSession:
         self._storey_updates = 0
         self._replaced: list[KeptElement] = []
         """Entries the last K update took out: their storey rows go out of the storey matrices too."""
+        self._last: tuple[Project, Results] | None = None
+        """The project analysed last and its results: the same object again costs nothing."""
 
     def analyse(self, project: Project) -> Results:
         """Masses, stiffness and modes of ``project`` without its switched-off elements; raises
@@ -120,6 +122,13 @@ class AnalysisSession:
             return results, [self._kept[e.id] for e in project.elements]
 
     def _analyse(self, project: Project) -> Results:
+        if self._last is not None and self._last[0] is project:
+            return self._last[1]
+        results = self._fresh(project)
+        self._last = (project, results)
+        return results
+
+    def _fresh(self, project: Project) -> Results:
         if not project.levels:
             raise AnalysisError("the project has no levels: draw a floor outline first")
         check_layout(project, self._layout)

@@ -27,7 +27,7 @@ costs more.
 
 from __future__ import annotations
 
-from dataclasses import dataclass, replace
+from dataclasses import dataclass
 
 import numpy as np
 import numpy.typing as npt
@@ -46,12 +46,12 @@ from core.lateral.loads import (
     accidental_eccentricities,
     case_load_vector,
     load_cases,
-    static_load,
+    load_exponent,
     vertical_distribution,
 )
 from core.lateral.response import end_ratio, extreme_points, floor_arrays, storey_drifts
 from core.model import Element, Project
-from core.solve.assembly import DOF_PER_FLOOR, FloorMass, element_block, element_floors
+from core.solve.assembly import DOF_PER_FLOOR, FloorMass, element_blocks_at_offsets, element_floors, line_rows_at_offsets
 from core.solve.diagnostics import ILL_CONDITIONED, LayoutMemo
 from core.solve.modal import influence_vectors
 
@@ -84,12 +84,13 @@ def element_positions(
     index = [e.id for e in project.elements].index(element_id)
     element = project.elements[index]
     with one_blas_thread():
-        return _figures(project, results.floors, kept, index, element, centres_xy)
+        return _figures(project, results.floors, results.stiffness, kept, index, element, centres_xy)
 
 
 def _figures(
     project: Project,
     floors: tuple[FloorMass, ...],
+    stiffness: FloatArray,
     kept: list[KeptElement],
     index: int,
     element: Element,
@@ -104,43 +105,40 @@ def _figures(
     scale = 1.0 / np.sqrt(mass)
     iota = influence_vectors(floors)
     totals = np.einsum("ri,i,ri->r", iota, mass, iota)
-    rest = np.zeros((size, size))
-    for j, entry in enumerate(kept):
-        if j != index:
-            rest[dof_slice(entry.floors), dof_slice(entry.floors)] += entry.block
     matrix = kept[index].matrix
     spanned = element_floors(element)
     dofs = dof_slice(spanned)
+    rest = np.array(stiffness)  # K without the element: the others' blocks stay where they are
+    rest[dofs, dofs] -= kept[index].block
+    near = centres[spanned.start : spanned.stop]
 
     c, s = element.direction
     half = np.array([element.end[0] - element.start[0], element.end[1] - element.start[1]]) / 2
     starts = midpoints - half
     distinct, where = np.unique(s * starts[:, 0] - c * starts[:, 1], return_inverse=True)
     where = where.reshape(-1)
-    representative = np.zeros((len(distinct), 2))  # a start per distinct offset: the figures depend on it alone
-    representative[where] = starts
 
     cases = load_cases(include_centred=True)
     # Reported cases; ±sign gives the same ratios, so one sense per (direction, eccentricity).
     solved = [c for c in cases if c.sign > 0 and (c.eccentricity_sign != 0 or settings.include_centred_case)]
     eccentricity = accidental_eccentricities(project, settings.accidental_eccentricity)
     ends = {d: extreme_points(project, d) for d in DIRECTIONS}
+    height = float(elevations[-1])
 
     periods = np.full((len(distinct), size), np.nan)
     rotation = np.full((len(distinct), size), np.nan)
     torsion = np.full((len(distinct), 2), np.nan)
     ecc_ratio = np.full((len(distinct), n, 2), np.nan)
     stiff = np.zeros(len(distinct), dtype=bool)
-    storey_cache: dict[bytes, FloatArray] = {}
+    others: dict[bytes, FloatArray] = {}
     for first in range(0, len(distinct), BATCH):
-        moved = [_moved(element, start) for start in representative[first : first + BATCH]]
-        K = np.repeat(rest[None], len(moved), axis=0)
-        for b, e in enumerate(moved):
-            K[b, dofs, dofs] += element_block(e, matrix, centres[spanned.start : spanned.stop])
+        chunk = slice(first, min(first + BATCH, len(distinct)))
+        offsets = distinct[chunk]
+        K = np.repeat(rest[None], len(offsets), axis=0)
+        K[:, dofs, dofs] += element_blocks_at_offsets(element, matrix, near, offsets)
         K = (K + K.transpose(0, 2, 1)) / 2
         values, vectors = np.linalg.eigh(K * scale[:, None] * scale[None, :])
         ok = values[:, 0] > ILL_CONDITIONED * np.maximum(values[:, -1], 1e-300)
-        chunk = slice(first, first + len(moved))
         stiff[chunk] = ok
         with np.errstate(invalid="ignore", divide="ignore"):
             periods[chunk] = 2 * np.pi / np.sqrt(values)
@@ -150,21 +148,21 @@ def _figures(
         dominant = ratios[..., :2].argmax(axis=1)  # (B, 2): the mode with the largest mass in x and in y
         # Offsets whose periods give the same load pattern share it (always, but under ASCE 7's
         # period-dependent distribution): their load cases and storey matrices go together.
-        groups: dict[bytes, tuple[FloatArray, list[int]]] = {}
+        groups: dict[tuple[float, float], list[int]] = {}
         for b in np.flatnonzero(ok).tolist():
-            loads = [
-                static_load(d, settings, floors, periods[first + b, dominant[b, a]]) for a, d in enumerate(DIRECTIONS)
-            ]
-            patterns = np.stack(
-                [vertical_distribution(1.0, masses, elevations, load.distribution_exponent) for load in loads]
+            exponents = tuple(
+                load_exponent(settings, height, float(periods[first + b, dominant[b, a]])) for a in range(2)
             )
-            groups.setdefault(patterns.tobytes(), (patterns, []))[1].append(b)
-        for patterns, members in groups.values():
+            groups.setdefault(exponents, []).append(b)
+        for exponents, members in groups.items():
+            patterns = np.stack([vertical_distribution(1.0, masses, elevations, k) for k in exponents])
             at = [first + b for b in members]
             torsion[at] = _worst_torsion(K[members], solved, patterns, eccentricity, centres, ends)
-            storeys = _storey_matrices(project, kept, index, patterns, centres, storey_cache)
-            rows = np.stack([_element_rows(moved[b], matrix, patterns, centres) for b in members])
-            ecc_ratio[at] = _eccentricity_ratios(storeys[None] + rows)
+            key = patterns.tobytes()
+            if key not in others:
+                others[key] = _storey_matrices(kept, index, patterns, centres)
+            rows = _moved_rows(element, matrix, patterns, centres[element.bottom : element.top], offsets[members], n)
+            ecc_ratio[at] = _eccentricity_ratios(others[key][None] + rows)
 
     stands = stiff[where] & _inside(project, element, starts, starts + 2 * half)
     periods, rotation, torsion, ecc_ratio = (array[where] for array in (periods, rotation, torsion, ecc_ratio))
@@ -177,14 +175,6 @@ def _figures(
         torsion_ratio=frozen_array(torsion),
         eccentricity_ratio=frozen_array(ecc_ratio),
         stands=stands,
-    )
-
-
-def _moved(element: Element, start: FloatArray) -> Element:
-    """``element`` translated so that it starts at ``start`` (direction and length kept)."""
-    dx, dy = float(start[0]) - element.start[0], float(start[1]) - element.start[1]
-    return replace(
-        element, start=(element.start[0] + dx, element.start[1] + dy), end=(element.end[0] + dx, element.end[1] + dy)
     )
 
 
@@ -215,38 +205,29 @@ def _worst_torsion(
     return worst
 
 
-def _storey_matrices(
-    project: Project,
-    kept: list[KeptElement],
-    index: int,
-    patterns: FloatArray,
-    centres: FloatArray,
-    cache: dict[bytes, FloatArray],
-) -> FloatArray:
+def _storey_matrices(kept: list[KeptElement], index: int, patterns: FloatArray, centres: FloatArray) -> FloatArray:
     """(N, 3, 3) storey stiffness matrices (definition (a)) of every element but ``index``."""
-    key = patterns.tobytes()
-    if key not in cache:
-        total = np.zeros((len(centres), 3, 3))
-        for j, entry in enumerate(kept):
-            if j != index:
-                total += _element_rows(entry.element, entry.matrix, patterns, centres, entry)
-        cache[key] = total
-    return cache[key]
+    total = np.zeros((len(centres), 3, 3))
+    for j, entry in enumerate(kept):
+        if j != index:
+            pattern = element_pattern(entry.element, patterns)
+            k = entry.storey_stiffness
+            if k is None or entry.pattern is None or not np.array_equal(entry.pattern, pattern):
+                k = element_storey_stiffness(entry.matrix, pattern)
+            spanned = slice(entry.element.bottom, entry.element.top)
+            total[spanned] += element_storey_rows(entry.element, k, centres[spanned])
+    return total
 
 
-def _element_rows(
-    element: Element, matrix: FloatArray, patterns: FloatArray, centres: FloatArray, entry: KeptElement | None = None
+def _moved_rows(
+    element: Element, matrix: FloatArray, patterns: FloatArray, centres: FloatArray, offsets: FloatArray, n: int
 ) -> FloatArray:
-    """(N, 3, 3) one element's share of the storey matrices: k_e,j·aᵀa on the storeys it spans."""
-    pattern = element_pattern(element, patterns)
-    k = None
-    if entry is not None and entry.pattern is not None and np.array_equal(entry.pattern, pattern):
-        k = entry.storey_stiffness
-    if k is None:
-        k = element_storey_stiffness(matrix, pattern)
-    out = np.zeros((len(centres), 3, 3))
-    spanned = slice(element.bottom, element.top)
-    out[spanned] = element_storey_rows(element, k, centres[spanned])
+    """(P, N, 3, 3) the moved element's share of the storey matrices, k_e,j·aᵀa, at each of
+    ``offsets`` (its storey stiffness does not depend on where it stands)."""
+    k = element_storey_stiffness(matrix, element_pattern(element, patterns))
+    a = line_rows_at_offsets(element, centres, offsets)
+    out = np.zeros((len(offsets), n, 3, 3))
+    out[:, element.bottom : element.top] = k[None, :, None, None] * a[..., :, None] * a[..., None, :]
     return out
 
 

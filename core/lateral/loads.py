@@ -179,6 +179,15 @@ def distribution_exponent(period: float) -> float:
     return float(np.clip(1.0 + (period - 0.5) / 2.0, 1.0, 2.0))
 
 
+def load_exponent(settings: Settings, height: float, modal_period: float) -> float:
+    """The vertical distribution's exponent k of :func:`static_load`: ASCE 7-16 §12.8.3 with the
+    period capped at C_u·T_a (§12.8.2); 1 (F_i ∝ z_i·m_i) for the other methods."""
+    if settings.load_method is not LoadMethod.ASCE7:
+        return 1.0
+    cap = period_cap_coefficient(settings.asce7.sd1) * approximate_period_asce7(height, settings.system_type)
+    return distribution_exponent(min(modal_period, cap))
+
+
 def vertical_distribution(
     base_shear: float, masses: FloatArray, elevations: FloatArray, exponent: float = 1.0
 ) -> FloatArray:
@@ -226,7 +235,7 @@ def static_load(
     elif method is LoadMethod.ASCE7:
         period = min(modal_period, cap)
         coefficient = asce7_response_coefficient(period, settings.asce7)
-        exponent = distribution_exponent(period)
+        exponent = load_exponent(settings, height, modal_period)
         clause = (
             "ASCE 7-16 §12.8.1.1 V = C_s·W; §12.8.2 T ≤ C_u·T_a; "
             f"§12.8.3 F_x ∝ w_x·h_x^k (k = {exponent:.3g})"

@@ -132,18 +132,45 @@ def element_block(element: Element, k: FloatArray, centres: FloatArray) -> Float
     ``centres`` (m, 2) are the mass centres of those floors. With the line rows a_p of the floors
     and k̂ = Lᵀ k L (L = [−1 | I] takes the bottom floor's displacement off), the block is
     k̂_pq·a_p a_qᵀ: no dense T is formed."""
-    a = line_rows(element, centres)
-    if element.bottom > 0:
-        n = k.shape[0]
-        k_hat = np.empty((n + 1, n + 1))
-        k_hat[1:, 1:] = k
-        k_hat[1:, 0] = -k.sum(axis=1)
-        k_hat[0, 1:] = -k.sum(axis=0)
-        k_hat[0, 0] = k.sum()
-    else:
-        k_hat = k
-    m = len(centres)
-    return (k_hat[:, None, :, None] * a[:, :, None, None] * a[None, None, :, :]).reshape(3 * m, 3 * m)
+    return _outer_block(floor_relative(element, k), line_rows(element, centres))
+
+
+def element_blocks_at_offsets(element: Element, k: FloatArray, centres: FloatArray, offsets: FloatArray) -> FloatArray:
+    """(P, 3m, 3m) :func:`element_block` of the element moved so that its line's offset
+    s·x − c·y (direction (c, s)) is each of ``offsets`` (P,): a move changes only the rows'
+    third entry, offset − (s·x_m − c·y_m)."""
+    return _outer_block(floor_relative(element, k), line_rows_at_offsets(element, centres, offsets))
+
+
+def line_rows_at_offsets(element: Element, centres: FloatArray, offsets: FloatArray) -> FloatArray:
+    """(P, m, 3) :func:`line_rows` of the element moved so that its line's offset s·x − c·y is
+    each of ``offsets``: a = [c, s, offset − (s·x_m − c·y_m)]."""
+    c, s = element.direction
+    a = np.empty((len(offsets), len(centres), 3))
+    a[..., 0], a[..., 1] = c, s
+    a[..., 2] = offsets[:, None] - (s * centres[:, 0] - c * centres[:, 1])[None, :]
+    return a
+
+
+def floor_relative(element: Element, k: FloatArray) -> FloatArray:
+    """k̂ = Lᵀ k L over the floors of :func:`element_floors` (k itself for an element on the base)."""
+    if element.bottom == 0:
+        return k
+    n = k.shape[0]
+    k_hat = np.empty((n + 1, n + 1))
+    k_hat[1:, 1:] = k
+    k_hat[1:, 0] = -k.sum(axis=1)
+    k_hat[0, 1:] = -k.sum(axis=0)
+    k_hat[0, 0] = k.sum()
+    return k_hat
+
+
+def _outer_block(k_hat: FloatArray, a: FloatArray) -> FloatArray:
+    """(…, 3m, 3m) k̂_pq·a_p a_qᵀ for line rows ``a`` (…, m, 3)."""
+    m = a.shape[-2]
+    lead = a.shape[:-2]
+    block = k_hat[..., :, None, :, None] * a[..., :, :, None, None] * a[..., None, None, :, :]
+    return block.reshape(*lead, 3 * m, 3 * m)
 
 
 def assemble_stiffness(project: Project, floors: tuple[FloorMass, ...]) -> FloatArray:
