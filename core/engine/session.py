@@ -135,7 +135,16 @@ class AnalysisSession:
         old_levels = self._levels
         floors = self._floor_masses(project)
         moved = _moved_floors(old_levels, project.levels, self._floors_before, floors)
-        kept = [self._element(project, e, floors, moved) for e in project.elements]
+        if moved is not None and moved[-1] == 0:  # no floor moved: an element kept as it was is reused
+            same = self._kept
+            kept = [
+                old
+                if (old := same.get(e.id)) is not None and old.element is e
+                else self._element(project, e, floors, moved)
+                for e in project.elements
+            ]
+        else:
+            kept = [self._element(project, e, floors, moved) for e in project.elements]
         K = self._stiffness(project, floors, kept)
         mass = np.array([v for f in floors for v in (f.mass, f.mass, f.inertia)])
         eigen = scaled_eigen(K, mass) if np.all(mass > 0.0) and np.all(np.isfinite(K)) else None

@@ -51,7 +51,13 @@ from core.lateral.loads import (
 )
 from core.lateral.response import end_ratio, extreme_points, floor_arrays, storey_drifts
 from core.model import Element, Project
-from core.solve.assembly import DOF_PER_FLOOR, FloorMass, element_blocks_at_offsets, element_floors, line_rows_at_offsets
+from core.solve.assembly import (
+    DOF_PER_FLOOR,
+    FloorMass,
+    element_blocks_at_offsets,
+    element_floors,
+    line_rows_at_offsets,
+)
 from core.solve.diagnostics import ILL_CONDITIONED, LayoutMemo
 from core.solve.modal import influence_vectors
 

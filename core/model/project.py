@@ -13,6 +13,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, field, replace
+from functools import cached_property
 
 from core.errors import ModelError
 from core.model.bounds import count, text, within
@@ -66,17 +67,18 @@ class Element:
         """The registered kind of the element's properties (:mod:`core.model.kinds`)."""
         return kind_of(self.properties)
 
-    @property
+    @cached_property
     def length(self) -> float:
+        """Kept once computed (the analysis asks for it many times per element)."""
         return math.dist(self.start, self.end)
 
     @property
     def storey_count(self) -> int:
         return self.top - self.bottom
 
-    @property
+    @cached_property
     def direction(self) -> Point:
-        """Unit vector from start to end (undefined for a zero-length line: (1, 0))."""
+        """Unit vector from start to end (undefined for a zero-length line: (1, 0)); kept once computed."""
         length = self.length
         if length == 0.0:
             return (1.0, 0.0)

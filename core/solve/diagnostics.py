@@ -15,6 +15,7 @@ from __future__ import annotations
 
 import math
 from collections.abc import Sequence
+from functools import lru_cache
 
 import numpy as np
 import shapely
@@ -23,6 +24,7 @@ from core.arrays import FloatArray
 from core.errors import AnalysisError
 from core.model import Element, Level, Project
 from core.model.geometry import bounding_size
+from core.model.validation import Ring
 from core.solve.assembly import FloorMass, element_transformation
 from core.solve.modal import ScaledEigen, scaled_eigen
 
@@ -230,7 +232,13 @@ def _storey_layout(project: Project, storey: int) -> None:
 
 def _plan_size(level: Level) -> float:
     """Diagonal of the outline's bounding box, m: the length tolerances are relative to it."""
-    return math.hypot(*bounding_size(level.outline))
+    return _outline_size(level.outline)
+
+
+@lru_cache(maxsize=4096)
+def _outline_size(outline: Ring) -> float:
+    """:func:`_plan_size` of an outline (kept per outline: a drag leaves the outlines alone)."""
+    return math.hypot(*bounding_size(outline))
 
 
 def _common_point(elements: Sequence[Element], size: float) -> FloatArray | None:

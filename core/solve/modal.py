@@ -12,7 +12,6 @@ from dataclasses import dataclass
 from enum import StrEnum
 
 import numpy as np
-from scipy.linalg import eigh
 
 from core.arrays import FloatArray
 from core.errors import AnalysisError
@@ -78,12 +77,13 @@ def influence_vectors(floors: tuple[FloorMass, ...]) -> FloatArray:
     masses = np.array([f.mass for f in floors])
     centres = np.array([f.centre for f in floors])
     X, Y = (masses @ centres) / masses.sum()
-    iota = np.zeros((3, 3 * len(floors)))
-    for j, (x, y) in enumerate(centres):
-        iota[0, 3 * j] = 1.0
-        iota[1, 3 * j + 1] = 1.0
-        iota[2, 3 * j : 3 * j + 3] = (-(y - Y), x - X, 1.0)
-    return iota
+    iota = np.zeros((3, len(floors), 3))
+    iota[0, :, 0] = 1.0
+    iota[1, :, 1] = 1.0
+    iota[2, :, 0] = -(centres[:, 1] - Y)
+    iota[2, :, 1] = centres[:, 0] - X
+    iota[2, :, 2] = 1.0
+    return iota.reshape(3, 3 * len(floors))
 
 
 @dataclass(frozen=True)
@@ -102,7 +102,7 @@ class ScaledEigen:
 def scaled_eigen(K: FloatArray, mass: FloatArray) -> ScaledEigen:
     """Eigenvalues and vectors of M^(-1/2) K M^(-1/2) for the diagonal of M, ``mass`` (all > 0)."""
     scale = 1.0 / np.sqrt(mass)
-    values, vectors = eigh(K * scale[:, None] * scale[None, :])
+    values, vectors = np.linalg.eigh(K * scale[:, None] * scale[None, :])  # numpy: less checking per call
     return ScaledEigen(values, vectors, scale)
 
 
@@ -119,16 +119,20 @@ def aligned_to_axes(values: FloatArray, vectors: FloatArray, directions: FloatAr
     returns an arbitrary one (a symmetric plan gives a pair "97 % x, 3 % y"). Turning the pair to
     the plan axes gives modes that are pure x and pure y where the plan allows it."""
     out = vectors.copy()
-    start = 0
     n = len(values)
-    while start < n:
+    # Only where a value is close to the next can a group begin: the loop visits those alone.
+    close = np.flatnonzero(values[1:] - values[:-1] <= EQUAL_PERIODS * np.abs(values[1:]))
+    start = 0
+    for candidate in close.tolist():
+        if candidate < start:
+            continue
+        start = candidate
         end = start + 1
         while end < n and values[end] - values[start] <= EQUAL_PERIODS * abs(values[end]):
             end += 1
-        if end - start > 1:
-            group = vectors[:, start:end]
-            q, _ = np.linalg.qr(group.T @ directions.T, mode="complete")
-            out[:, start:end] = group @ q
+        group = vectors[:, start:end]
+        q, _ = np.linalg.qr(group.T @ directions.T, mode="complete")
+        out[:, start:end] = group @ q
         start = end
     return out
 
