@@ -51,6 +51,28 @@ class LayoutMemo:
     def __init__(self) -> None:
         self.regions: dict[tuple[tuple[float, float], ...], tuple[int, shapely.Polygon]] = {}
         self.inside: set[tuple[object, ...]] = set()
+        self.codes: tuple[int, ...] = ()
+        """The outline numbers of the levels the last check saw."""
+        self.passed: dict[str, Element] = {}
+        """Elements found inside under ``codes``, by id (the very objects: a kept one is not re-keyed)."""
+        self.elements: tuple[Element, ...] = ()
+        self.lines: FloatArray = np.zeros((0, 6))
+        """Per element of ``elements``: bottom, top, direction (c, s), start (x, y)."""
+
+    def line_table(self, elements: tuple[Element, ...]) -> FloatArray:
+        """(E, 6) bottom, top, c, s, x, y of ``elements``: the rows of elements kept from the last
+        call are reused, so a drag rebuilds one row."""
+        old = self.elements
+        if len(old) == len(elements):
+            changed = [i for i, (a, b) in enumerate(zip(old, elements, strict=True)) if a is not b]
+            table = self.lines.copy()
+        else:
+            changed, table = list(range(len(elements))), np.zeros((len(elements), 6))
+        for i in changed:
+            e = elements[i]
+            table[i] = (e.bottom, e.top, *e.direction, *e.start)
+        self.elements, self.lines = elements, table
+        return table
 
     def region(self, level: Level) -> tuple[int, shapely.Polygon]:
         """(a number naming the outline, its region grown by a hair) for ``level``."""
@@ -59,6 +81,7 @@ class LayoutMemo:
             if len(self.regions) > self.LIMIT:
                 self.regions.clear()
                 self.inside.clear()
+                self.codes, self.passed = (), {}  # the numbers start again: what they named is gone
             # Grown by a hair, so that a line on the outline's edge counts as inside.
             region = shapely.Polygon(level.outline).buffer(1e-6 * _plan_size(level) + 1e-9)
             shapely.prepare(region)
@@ -76,11 +99,10 @@ def check_layout(project: Project, memo: LayoutMemo | None = None) -> None:
     _zero_length(project)
     _outside_outline(project, memo or LayoutMemo())
     n = len(project.levels)
-    spans = np.array([(e.bottom, e.top) for e in project.elements], dtype=int).reshape(-1, 2)
+    table = (memo or LayoutMemo()).line_table(project.elements)
     storeys = np.arange(1, n + 1)[:, None]
-    members = (spans[:, 0] < storeys) & (storeys <= spans[:, 1])  # (storeys, elements)
-    directions = np.array([e.direction for e in project.elements], dtype=float).reshape(-1, 2)
-    starts = np.array([e.start for e in project.elements], dtype=float).reshape(-1, 2)
+    members = (table[:, 0] < storeys) & (storeys <= table[:, 1])  # (storeys, elements)
+    directions, starts = table[:, 2:4], table[:, 4:6]
     checked: set[tuple[bytes, float]] = set()
     for storey in range(1, n + 1):
         # Storeys with the same elements and plan size give the same answer: check each set once.
@@ -167,18 +189,28 @@ def _zero_length(project: Project) -> None:
 def _outside_outline(project: Project, memo: LayoutMemo) -> None:
     numbered = [memo.region(level) for level in project.levels]
     codes = tuple(number for number, _ in numbered)
+    if codes != memo.codes or len(memo.passed) > memo.LIMIT:
+        memo.codes, memo.passed = codes, {}
+    passed = memo.passed
+    code_level = {code: i for i, code in enumerate(codes)}  # a level (0-based) holding each region
     bad: list[tuple[Element, int]] = []
     for element in project.elements:
+        if passed.get(element.id) is element:
+            continue
         first = max(element.bottom, 1)  # the floors it connects: its bottom floor (if any) and those it spans
         key = (element.start, element.end, first, element.top, codes[first - 1 : element.top])
         if key in memo.inside:
+            passed[element.id] = element
             continue
         line = shapely.LineString([element.start, element.end])
-        outside = [level for level in range(first, element.top + 1) if not numbered[level - 1][1].covers(line)]
+        # Floors with one outline share its region: each distinct region is asked once.
+        covered = {code: numbered[code_level[code]][1].covers(line) for code in set(codes[first - 1 : element.top])}
+        outside = [level for level in range(first, element.top + 1) if not covered[codes[level - 1]]]
         if outside:
             bad.extend((element, level) for level in outside)
         else:
             memo.inside.add(key)
+            passed[element.id] = element
     if bad:
         parts = [f"element {e.id} leaves the outline of level {project.levels[j - 1].name!r}" for e, j in bad]
         raise AnalysisError(
