@@ -21,6 +21,7 @@ import itertools
 import math
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
+from functools import lru_cache
 
 import numpy as np
 import numpy.typing as npt
@@ -267,6 +268,29 @@ def _axis(centres: Sequence[Point | None], elevations: Sequence[float]) -> Attac
     return AttachedPoints.join(parts)
 
 
+@lru_cache(maxsize=4096)
+def _element_parts(
+    element: Element, elevations: tuple[float, ...], look: Elevation
+) -> tuple[AttachedPoints, AttachedPoints]:
+    """One element's plan lines on the floors it reaches, and its elevation drawn as ``look``
+    (its kind's): wall quads, or the frame's or spring's segments. Kept per element and
+    elevations, so a drag re-makes the moved element's alone; the arrays are read-only (shared)."""
+    plan = AttachedPoints.join([
+        AttachedPoints.of([element.start, element.end], j - 1, elevations[j - 1])
+        for j in range(element.bottom + 1, element.top + 1)
+    ])
+    if look is Elevation.WALL:
+        side = _wall_quads(element, elevations)
+    else:
+        collector = _SegmentCollector()
+        _elevation_segments(element, elevations, collector)
+        side = collector.points()
+    for points in (plan, side):
+        for array in (points.xy, points.floor, points.z):
+            array.setflags(write=False)
+    return plan, side
+
+
 def building_geometry(
     project: Project,
     floors: Sequence[FloorMass],
@@ -295,21 +319,16 @@ def building_geometry(
 
     plan_elements: dict[Kind, AttachedPoints] = {}
     frame_lines: dict[Kind, AttachedPoints] = {}
-    walls = []
+    walls: list[AttachedPoints] = []
     for kind in registered_kinds():
-        of_kind = [e for e in project.elements if e.kind is kind]
-        plan_elements[kind] = AttachedPoints.join([
-            AttachedPoints.of([e.start, e.end], j - 1, elevations[j - 1])
-            for e in of_kind for j in range(e.bottom + 1, e.top + 1)
-        ])
-        if kind_spec(kind).elevation is Elevation.WALL:
-            walls = [_wall_quads(e, elevations) for e in of_kind]
+        look = kind_spec(kind).elevation
+        parts = [_element_parts(e, elevations, look) for e in project.elements if e.kind is kind]
+        plan_elements[kind] = AttachedPoints.join([plan for plan, _ in parts])
+        if look is Elevation.WALL:
+            walls.extend(side for _, side in parts)
             frame_lines[kind] = AttachedPoints.empty()
         else:
-            collector = _SegmentCollector()
-            for e in of_kind:
-                _elevation_segments(e, elevations, collector)
-            frame_lines[kind] = collector.points()
+            frame_lines[kind] = AttachedPoints.join([side for _, side in parts])
 
     rigidity = list(rigidity_centres) if rigidity_centres else [None] * n
     if len(rigidity) != n:
