@@ -3,9 +3,12 @@ mode, and copying as tab-separated text."""
 
 from __future__ import annotations
 
+import dataclasses
+
 import pytest
 from PySide6.QtGui import QGuiApplication
 
+from app.panels.results import elements_table, modes_table, storeys_table
 from app.panels.verdicts import worst
 from app.resources import sample_path
 from core.lateral.records import Check, Status, Verdict
@@ -91,3 +94,25 @@ def test_element_shares_tab_says_shares_are_envelopes(window):
     assert "envelope" in tables.tab_note.text() and "100 %" in tables.tab_note.text()
     tables.tabs.setCurrentWidget(tables.storeys)
     assert "100 %" not in tables.tab_note.text()
+
+
+def test_a_drag_refreshes_the_tab_in_front_and_the_rest_when_shown_or_at_its_end(window, qtbot):
+    document, tables = window.document, window.tables
+    tables.tabs.setCurrentWidget(tables.storeys)
+    project = document.project
+    element = project.elements[0]
+    dx, dy = -0.4 * element.direction[1], 0.4 * element.direction[0]  # across its line: the shares change
+    moved = dataclasses.replace(
+        element, start=(element.start[0] + dx, element.start[1] + dy), end=(element.end[0] + dx, element.end[1] + dy)
+    )
+    trial = dataclasses.replace(project, elements=(moved, *project.elements[1:]))
+    before = [list(r) for r in tables.elements.rows_model.rows]
+    document.preview(trial)
+    document.flush_analysis()
+    qtbot.waitUntil(lambda: tables.storeys.rows_model.rows == storeys_table(document.results)[1], timeout=3000)
+    assert [list(r) for r in tables.elements.rows_model.rows] == before  # behind: left for later
+    tables.tabs.setCurrentWidget(tables.modes)  # shown mid-drag: filled at once
+    assert tables.modes.rows_model.rows == modes_table(document.results)[1]
+    document.apply(trial, "move")
+    document.flush_analysis()
+    assert tables.elements.rows_model.rows == elements_table(document.results)[1]

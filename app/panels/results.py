@@ -7,6 +7,7 @@ tab-separated text. (The live readouts beside the plan are in :mod:`app.panels.r
 from __future__ import annotations
 
 import math
+from collections.abc import Callable
 
 from PySide6.QtCore import QAbstractTableModel, QModelIndex, QPersistentModelIndex, Qt, Signal
 from PySide6.QtGui import QAction, QGuiApplication, QKeySequence
@@ -49,6 +50,10 @@ def fmt_number(value: float | None, digits: int = 3) -> str:
 
 
 # ------------------------------------------------------------------ table contents
+
+
+TableContents = Callable[[Results], tuple[list[str], list[list[str]]]]
+"""What a table shows of the results: header and rows."""
 
 
 def modes_table(results: Results) -> tuple[list[str], list[list[str]]]:
@@ -253,6 +258,8 @@ class TablesPanel(QWidget):
     def __init__(self, document: ProjectDocument, parent: QWidget | None = None) -> None:
         super().__init__(parent)
         self.document = document
+        self._stale_tabs: set[QWidget] = set()
+        """Tabs a drag's preview left behind (filled when shown or when the drag ends)."""
         self.tabs = QTabWidget()
         self.modes, self.storeys, self.elements = ResultsTable(), ResultsTable(), ResultsTable()
         self.forces = ResultsTable()
@@ -284,7 +291,21 @@ class TablesPanel(QWidget):
         self.elements.row_clicked.connect(self._element_clicked)
         self._stale = True
         self._throttle = DragThrottle(document, TABLE_REFRESH_MS, self._follow, self.isVisible, self)
+        document.preview_changed.connect(self._drag_ended)
         self.refresh()
+
+    def _drag_ended(self) -> None:
+        """The tabs a drag left behind catch up when it ends (its last results are the committed
+        project's, so no new results may follow)."""
+        if self.document.previewing or not self._stale_tabs:
+            return
+        if not self.isVisible():
+            self._stale = True
+            return
+        contents = self._contents()
+        for table in [t for t in contents if t in self._stale_tabs]:
+            self._fill(table, contents[table])
+        self._stale_tabs = set()
 
     def _follow(self) -> None:
         """The results changed: refresh now if shown, else when shown."""
@@ -300,20 +321,39 @@ class TablesPanel(QWidget):
             self.refresh()
 
     def refresh(self) -> None:
+        """Every table; during a drag only the tab in front (the others follow when shown or when
+        the drag ends: the element shares alone cost a whole drag step on a large building)."""
         self._throttle.cancel()
         self._stale = False
+        tables = self._contents()
+        if self.document.previewing:
+            front = self.tabs.currentWidget()
+            self._stale_tabs = {table for table in tables if table is not front}
+            tables = {front: tables[front]} if front in tables else {}
+        else:
+            self._stale_tabs = set()
+        for table, contents in tables.items():
+            self._fill(table, contents)
+
+    def _contents(self) -> dict[ResultsTable, TableContents]:
+        return {
+            self.modes: modes_table,
+            self.storeys: storeys_table,
+            self.forces: forces_table,
+            self.elements: elements_table,
+        }
+
+    def _fill(self, table: ResultsTable, contents: TableContents) -> None:
         results = self.document.results
-        for table, contents in (
-            (self.modes, modes_table),
-            (self.storeys, storeys_table),
-            (self.forces, forces_table),
-            (self.elements, elements_table),
-        ):
-            if table.rows_model.update_rows(*(contents(results) if results is not None else ([], []))):
-                table.resizeColumnsToContents()
+        if table.rows_model.update_rows(*(contents(results) if results is not None else ([], []))):
+            table.resizeColumnsToContents()
 
     def _show_tab_note(self, *_: object) -> None:
         self.tab_note.setText(TAB_NOTES.get(self.tabs.tabText(self.tabs.currentIndex()), ""))
+        front = self.tabs.currentWidget()
+        if front in self._stale_tabs:
+            self._stale_tabs.discard(front)
+            self._fill(front, self._contents()[front])
 
     def _element_clicked(self, row: int) -> None:
         element_id, storey = self.elements.rows_model.rows[row][:2]
