@@ -156,10 +156,8 @@ def _figures(
         # period-dependent distribution): their load cases and storey matrices go together.
         groups: dict[tuple[float, float], list[int]] = {}
         for b in np.flatnonzero(ok).tolist():
-            exponents = tuple(
-                load_exponent(settings, height, float(periods[first + b, dominant[b, a]])) for a in range(2)
-            )
-            groups.setdefault(exponents, []).append(b)
+            x, y = (load_exponent(settings, height, float(periods[first + b, dominant[b, a]])) for a in range(2))
+            groups.setdefault((x, y), []).append(b)
         for exponents, members in groups.items():
             patterns = np.stack([vertical_distribution(1.0, masses, elevations, k) for k in exponents])
             at = [first + b for b in members]
