@@ -7,11 +7,14 @@ steps (every step a new position, so every step re-analyses). One step is timed 
 move until the event loop is idle again and the plan has been repainted, which includes the
 analysis, the scene update, the readouts, the strip, the tables and the mode views.
 
-Run: ``QT_QPA_PLATFORM=offscreen /work/venv/bin/python benchmarks/bench_drag.py``
+Run: ``QT_QPA_PLATFORM=offscreen python benchmarks/bench_drag.py [--json out.json]`` (or with
+``QT_QPA_PLATFORM=xcb DISPLAY=:N`` under Xvfb).
 """
 
 from __future__ import annotations
 
+import argparse
+import json
 import os
 import statistics
 import sys
@@ -87,6 +90,10 @@ def bench(window: MainWindow, path: Path) -> dict[str, float]:
 
 
 def main() -> None:
+    parser = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    parser.add_argument("--json", type=Path, help="also write the figures as JSON")
+    args = parser.parse_args()
+    report: dict[str, dict[str, dict[str, float]]] = {}
     app = QApplication.instance() or QApplication(sys.argv[:1])
     with tempfile.TemporaryDirectory() as folder:
         settings = QSettings(str(Path(folder) / "bench.ini"), QSettings.Format.IniFormat)
@@ -107,6 +114,7 @@ def main() -> None:
             )
             for path in paths:
                 r = bench(window, path)
+                report.setdefault(title, {})[path.stem] = r
                 print(
                     f"{path.stem:36} {r['levels']:6d} {r['elements']:5d} {r['median']:7.1f} {r['p90']:7.1f} "
                     f"{r['max']:7.1f} {r['analysis']:8.1f} {1000 / r['median']:8.0f} {r['failed']:8d}"
@@ -116,6 +124,8 @@ def main() -> None:
             mode_dock.hide()
             app.processEvents()
         window.close()
+    if args.json:
+        args.json.write_text(json.dumps({"platform": os.environ.get("QT_QPA_PLATFORM", ""), "runs": report}, indent=2))
 
 
 if __name__ == "__main__":
