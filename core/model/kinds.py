@@ -60,7 +60,9 @@ class KindSpec:
     """Sensible concept-stage properties in a material (the kind's usual one for None)."""
     storey_values: str | None = None
     """The name of the properties' field that holds one value per storey spanned (a spring's
-    ``storey_stiffness``), or None when the properties do not depend on the span."""
+    ``storey_stiffness``, the walls' and frames' ``storeys`` sections), or None when the
+    properties do not depend on the span. An empty tuple there means "the same in every storey"
+    (a kind that needs its values, like the spring, refuses it itself)."""
     elevation: Elevation = Elevation.FRAME
     """How the kind is drawn in elevation."""
 
@@ -120,7 +122,8 @@ def default_properties(kind: Kind, material: Material | None = None, storeys: in
 
 
 def storey_values(properties: object) -> tuple[Any, ...] | None:
-    """The per-storey values of ``properties``, or None for a kind that has none."""
+    """The per-storey values of ``properties`` (empty: the same for all storeys), or None for a
+    kind that has none."""
     name = kind_spec(kind_of(properties)).storey_values
     return None if name is None else tuple(getattr(properties, name))
 
@@ -130,6 +133,8 @@ def _with_storey_values(properties: Any, edit: Callable[[list[Any]], None]) -> A
     if name is None:
         return properties
     values = list(getattr(properties, name))
+    if not values:
+        return properties  # the same section in every storey, whatever the span
     edit(values)
     return dataclasses.replace(properties, **{name: tuple(values)})
 
@@ -164,9 +169,11 @@ def storey_removed(properties: Any, index: int) -> Any:
 
 def _register_builtin_kinds() -> None:
     """The four kinds Poise ships with (their element models live in core/elements)."""
-    register_kind(KindSpec(ElementKind.BRACED_FRAME, BracedFrame, "B", lambda material: BracedFrame()))
-    register_kind(KindSpec(ElementKind.SHEAR_WALL, ShearWall, "W", steel_or_concrete_wall, elevation=Elevation.WALL))
-    register_kind(KindSpec(ElementKind.MOMENT_FRAME, MomentFrame, "M", steel_or_concrete_frame))
+    register_kind(KindSpec(ElementKind.BRACED_FRAME, BracedFrame, "B", lambda material: BracedFrame(), "storeys"))
+    register_kind(
+        KindSpec(ElementKind.SHEAR_WALL, ShearWall, "W", steel_or_concrete_wall, "storeys", Elevation.WALL)
+    )
+    register_kind(KindSpec(ElementKind.MOMENT_FRAME, MomentFrame, "M", steel_or_concrete_frame, "storeys"))
     register_kind(
         KindSpec(ElementKind.SPRING, Spring, "S", lambda material: Spring(), "storey_stiffness", Elevation.POST)
     )
