@@ -14,6 +14,7 @@ builder, to :func:`core.elements.kinds.register_element_kind`.
 from __future__ import annotations
 
 import dataclasses
+import typing
 from collections.abc import Callable, Iterator
 from dataclasses import dataclass
 from enum import StrEnum
@@ -164,6 +165,39 @@ def storey_inserted(properties: Any, index: int) -> Any:
 def storey_removed(properties: Any, index: int) -> Any:
     """``properties`` without storey ``index`` (0 = its lowest)."""
     return _with_storey_values(properties, lambda values: values.pop(index))
+
+
+def storey_value_type(kind: Kind) -> type | None:
+    """The type of one per-storey value of ``kind`` (a section dataclass, or ``float`` for a
+    spring's stiffness), or None for a kind without per-storey values."""
+    spec = kind_spec(kind)
+    if spec.storey_values is None:
+        return None
+    hint = typing.get_type_hints(spec.properties)[spec.storey_values]
+    value_type: type = typing.get_args(hint)[0]
+    return value_type
+
+
+def split_by_storey(properties: Any, storeys: int) -> Any:
+    """``properties`` with a section of its own in each of ``storeys`` storeys, each a copy of the
+    one it has now ("same for all" turned off); unchanged if it has per-storey values already."""
+    spec = kind_spec(kind_of(properties))
+    value_type = storey_value_type(spec.kind)
+    if spec.storey_values is None or getattr(properties, spec.storey_values) or value_type is None:
+        return properties
+    if not dataclasses.is_dataclass(value_type):
+        raise ValueError(f"kind {spec.kind!r} has no section to repeat")
+    section = value_type(**{f.name: getattr(properties, f.name) for f in dataclasses.fields(value_type)})
+    return dataclasses.replace(properties, **{spec.storey_values: (section,) * storeys})
+
+
+def same_for_all(properties: Any) -> Any:
+    """``properties`` with one section for all storeys: its lowest storey's ("same for all")."""
+    spec = kind_spec(kind_of(properties))
+    value_type = storey_value_type(spec.kind)
+    if spec.storey_values is None or value_type is None or not dataclasses.is_dataclass(value_type):
+        return properties
+    return dataclasses.replace(properties, **{spec.storey_values: ()})
 
 
 

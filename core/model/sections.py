@@ -19,6 +19,7 @@ from dataclasses import dataclass
 from enum import StrEnum
 
 from core.errors import ModelError
+from core.model.bounds import BOUNDS
 
 MM = 1.0e-3
 """Designations give dimensions in millimetres; the model works in metres."""
@@ -33,7 +34,7 @@ class ShapeFamily(StrEnum):
     """Rectangular hollow section: depth h, width b, wall t (bending about the axis parallel to b)."""
     CHS = "CHS"
     """Circular hollow section: outside diameter d, wall t."""
-    I = "I"  # noqa: E741 — the shape's own letter
+    I = "I"
     """Doubly symmetric I section: depth h, flange width b, flange thickness t_f, web thickness t_w."""
 
 
@@ -108,15 +109,17 @@ def steel_shape(designation: str, path: str = "") -> SteelShape:
         raise ModelError(path, f"{designation!r} is not a section name; {example}") from None
     if len(values) != _DIMENSIONS[family]:
         raise ModelError(path, f"{family.value} needs {_NAMES[family]} in mm, got {designation!r}")
-    if not all(0.5 <= v <= 5000.0 for v in values):
-        raise ModelError(path, f"dimensions of {designation!r} must be from 0.5 to 5000 mm")
     d = [v * MM for v in values]
-    walls_fit = {
-        ShapeFamily.SHS: 2 * d[1] < d[0],
-        ShapeFamily.RHS: 2 * d[2] < min(d[0], d[1]),
-        ShapeFamily.CHS: 2 * d[1] < d[0],
-        ShapeFamily.I: 2 * d[2] < d[0] and d[3] < d[1],
-    }[family]
+    bound = BOUNDS["shape_dimension"]
+    if not all(bound.low <= v <= bound.high for v in d):
+        limits = f"from {bound.low / MM:g} to {bound.high / MM:g} mm"
+        raise ModelError(path, f"dimensions of {designation!r} must be {limits}")
+    if family is ShapeFamily.RHS:
+        walls_fit = 2 * d[2] < min(d[0], d[1])
+    elif family is ShapeFamily.I:
+        walls_fit = 2 * d[2] < d[0] and d[3] < d[1]
+    else:
+        walls_fit = 2 * d[1] < d[0]
     if not walls_fit:
         raise ModelError(path, f"the walls of {designation!r} are too thick for its outline")
     return SteelShape(family, tuple(d))
