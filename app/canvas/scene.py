@@ -15,6 +15,7 @@ from app.canvas.items import ElementItem, FloorItem, UnderlayItem
 from app.canvas.overlays import OverlayItem, overlay_data
 from app.document import ProjectDocument
 from core.model import Element, Level
+from core.model.continuity import transfers
 
 SCENE_HALF_SIZE = 20_000.0
 """Half the scene's extent, m: far beyond any building, so zoom about the cursor always works."""
@@ -128,8 +129,9 @@ class PlanScene(QGraphicsScene):
         selected = set(self.document.selection)
         error = self.document.error
         culprits = set(error.elements) if error is not None else set()
+        standing = {t.element for t in transfers(self.document.shown_project)}
         for element_id, item in self.element_items.items():
-            item.set_marks(element_id in selected, element_id in culprits)
+            item.set_marks(element_id in selected, element_id in culprits, element_id in standing)
 
     def _results(self) -> None:
         self.overlay.set_data(overlay_data(self.document.results, self.document.current_level))
