@@ -1,7 +1,7 @@
 """Continuous lines and transfers: which elements stand on which, in plan and in height.
 
 Elements of one kind on the same plan segment (both ends within ``LINE_TOLERANCE``, either way
-round) whose levels touch (the upper one's bottom is the lower one's top) are one lateral line:
+round), both switched on or both off, whose levels touch (the upper one's bottom is the lower one's top) are one lateral line:
 :func:`join_stacked` merges each such stack into its lowest element, spanning all its storeys, with
 each storey keeping its own section. The editor does this on every committed edit, so a wall drawn
 in two pieces is analysed as one cantilever, never as two with a fixed base between them.
@@ -108,6 +108,7 @@ def join_stacked(project: Project) -> tuple[Project, dict[str, str]]:
                 merged[i]
                 for i in ending.get(element.bottom, [])
                 if merged[i].kind == element.kind
+                and merged[i].active == element.active
                 and same_segment(merged[i], element)
                 and joined_properties(merged[i], element) is not None
             ),

@@ -158,3 +158,9 @@ def test_a_stack_of_three_springs_becomes_one_chain() -> None:
     assert absorbed == {"S2": "S1", "S3": "S1"}
     assert joined.element("S1").properties.storey_stiffness == (3e5, 2e5, 2e5, 2e5, 1e5, 1e5, 1e5, 5e4)
     assert transfers(joined) == ()
+
+
+def test_a_switched_off_piece_is_not_joined_to_a_switched_on_one() -> None:
+    lower = Element("W1", (2.0, 0.0), (8.0, 0.0), 0, 3, ShearWall())
+    upper = Element("W3", (2.0, 0.0), (8.0, 0.0), 3, 8, ShearWall(), active=False)
+    assert join_stacked(block((lower, upper)))[1] == {}
