@@ -11,6 +11,7 @@ from __future__ import annotations
 from PySide6.QtCore import QRectF
 from PySide6.QtWidgets import QGraphicsItem, QGraphicsScene
 
+from app.canvas import style
 from app.canvas.items import ElementItem, FloorItem, UnderlayItem
 from app.canvas.overlays import OverlayItem, overlay_data
 from app.document import ProjectDocument
@@ -19,9 +20,6 @@ from core.model.continuity import transfers
 
 SCENE_HALF_SIZE = 20_000.0
 """Half the scene's extent, m: far beyond any building, so zoom about the cursor always works."""
-
-SWITCHED_OFF_OPACITY = 0.3
-"""A switched-off element is drawn faded: kept in the layout, left out of the analysis."""
 
 Z_BELOW, Z_UNDERLAY, Z_FLOOR, Z_ELEMENTS, Z_TEMPORARY = 0, 1, 2, 10, 60
 
@@ -123,7 +121,7 @@ class PlanScene(QGraphicsScene):
                 self.addItem(item)
             else:
                 item.set_element(element)
-            item.setOpacity(1.0 if element.active else SWITCHED_OFF_OPACITY)
+            item.setOpacity(1.0 if element.active else style.SWITCHED_OFF_OPACITY)
 
     def _mark(self) -> None:
         selected = set(self.document.selection)

@@ -297,7 +297,7 @@ def building_geometry(
     frame_lines: dict[Kind, AttachedPoints] = {}
     walls = []
     for kind in registered_kinds():
-        of_kind = [e for e in project.elements if e.kind is kind]
+        of_kind = [e for e in project.elements if e.kind is kind and e.active]  # switched-off ones do not move
         plan_elements[kind] = AttachedPoints.join([
             AttachedPoints.of([e.start, e.end], j - 1, elevations[j - 1])
             for e in of_kind for j in range(e.bottom + 1, e.top + 1)
