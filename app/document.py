@@ -18,6 +18,7 @@ from app.commands import ReplaceProject
 from app.live_analysis import LiveAnalysis
 from core.errors import AnalysisError
 from core.model import Project
+from core.model.continuity import join_stacked
 from core.model.fileio import load_project, save_project
 from core.results import Results
 
@@ -53,6 +54,8 @@ class ProjectDocument(QObject):
         self._current_level = 1
         self.current_mode = 1
         self._selection: tuple[str, ...] = ()
+        self._absorbed: dict[str, str] = {}
+        """Upper pieces the last committed edit joined into the element below (upper → lower)."""
         self._underlays: dict[int, list[Segment]] = {}
         self.live = LiveAnalysis(parent=self)
         self.live.computed.connect(self._take_results)
@@ -75,12 +78,20 @@ class ProjectDocument(QObject):
     def apply(self, project: Project, text: str, merge_key: Any = None) -> bool:
         """Make ``project`` current as one undo step; False when nothing changed.
 
-        A drag's preview ends here without analysing the committed project it replaces."""
+        Elements the edit stacked on one line (same kind, same segment, touching levels) are
+        joined into one in the same step (:func:`core.model.continuity.join_stacked`); a selected
+        upper piece stays selected as the joined element. A drag's preview ends here without
+        analysing the committed project it replaces."""
+        project, absorbed = join_stacked(project)
+        self._absorbed = absorbed
         if project == self._project:
             self.end_preview()
             return False
         was_previewing = self._preview is not None
+        selection = self._selection
         self.undo_stack.push(ReplaceProject(self, self._project, project, text, merge_key))
+        if absorbed:
+            self.select(selection)
         if was_previewing:
             self.preview_changed.emit()
         return True
@@ -136,8 +147,15 @@ class ProjectDocument(QObject):
         self.selection_changed.emit()
 
     def open(self, path: Path) -> None:
-        """Load ``path``; raises ModelError (file unchanged, document unchanged) if it is bad."""
+        """Load ``path``; raises ModelError (file unchanged, document unchanged) if it is bad.
+
+        Elements the file holds stacked on one line are joined as the first undo step, so the
+        file opens as it will be analysed (and saving keeps the join)."""
         self.reset(load_project(path), Path(path))
+        joined, absorbed = join_stacked(self._project)
+        if absorbed:
+            pieces = ", ".join(f"{upper} into {lower}" for upper, lower in absorbed.items())
+            self.apply(joined, f"Join stacked elements ({pieces})")
 
     def save(self, path: Path | None = None, overwrite_read_only: bool = False) -> None:
         """Save to ``path`` or the current file; raises OSError (ReadOnlyFileError for a read-only
@@ -173,7 +191,10 @@ class ProjectDocument(QObject):
         return self._selection
 
     def select(self, ids: tuple[str, ...] | list[str]) -> None:
-        ids = tuple(dict.fromkeys(ids))
+        """Select ``ids``; a piece the last edit joined into another selects that one, and ids
+        not in the project are left out."""
+        present = {e.id for e in self._project.elements}
+        ids = tuple(i for i in dict.fromkeys(self._absorbed.get(i, i) for i in ids) if i in present)
         if ids != self._selection:
             self._selection = ids
             self.selection_changed.emit()

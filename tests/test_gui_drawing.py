@@ -147,13 +147,19 @@ def test_arrow_keys_nudge_and_rotate_turns_a_quarter(qtbot, tmp_path):
 
 def test_copy_to_levels_makes_new_elements(qtbot, tmp_path):
     base = balanced_box()
-    project = replace(base, levels=(base.levels[0], replace(base.levels[0], name="Level 2")))
-    window = make_window(qtbot, tmp_path, project)
+    levels = tuple(replace(base.levels[0], name=f"Level {j}") for j in (1, 2, 3))
+    window = make_window(qtbot, tmp_path, replace(base, levels=levels))
     window.document.select(["B1"])
-    new_ids = window.edits.copy_selection_to(1, 2)
+    new_ids = window.edits.copy_selection_to(2, 3)
     copy = window.document.project.element(new_ids[0])
-    assert (copy.start, copy.end, copy.bottom, copy.top) == ((0, 6), (0, 12), 1, 2)
+    assert (copy.start, copy.end, copy.bottom, copy.top) == ((0, 6), (0, 12), 2, 3)
     assert window.document.selection == tuple(new_ids)
+    window.document.select(["B1"])
+    joined_ids = window.edits.copy_selection_to(1, 2)  # stands on B1 and under the first copy
+    frame = window.document.project.element("B1")
+    assert (frame.bottom, frame.top) == (0, 3), "pieces stacked on one line are joined into one element"
+    assert not {*joined_ids, *new_ids} & {e.id for e in window.document.project.elements}
+    assert window.document.selection == ("B1",)
 
 
 def test_underlay_is_shown_locked_and_snappable(qtbot, tmp_path):

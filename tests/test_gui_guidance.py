@@ -130,3 +130,27 @@ def test_switched_off_element_is_faded_left_out_and_compared(window, qtbot):
     assert document.project.element("B5").active
     panel.request_losses()
     qtbot.waitUntil(lambda: panel.losses.rowCount() == 5, timeout=30_000)
+
+
+def test_a_new_element_is_mapped_before_placing_and_placed_by_one_undo_step(window, qtbot):
+    panel = window.guidance.panel
+    document = window.document
+    panel.subject.setCurrentIndex(panel.subject.findText("a new braced frame"))
+    panel.new_along.setCurrentIndex(1)  # along y
+    qtbot.waitUntil(lambda: panel.map is not None and panel.map.element_id == "B6", timeout=20_000)
+    assert "a new B6" in panel.target.text()
+    candidate = panel.candidate()
+    assert candidate is not None and candidate[1].direction == pytest.approx((0.0, 1.0))
+    steps = document.undo_stack.count()
+    panel.request_suggestion()
+    qtbot.waitUntil(lambda: panel.suggestion is not None, timeout=30_000)
+    found = panel.suggestion
+    panel.accept_button.click()
+    settle(window)
+    assert document.undo_stack.count() == steps + 1
+    placed = document.project.element("B6")
+    assert placed.start == pytest.approx(found.start) and placed.length == pytest.approx(6.0)
+    assert results_value(document.results, found.measure) == pytest.approx(found.value, rel=1e-9)
+    document.undo_stack.undo()
+    settle(window)
+    assert "B6" not in {e.id for e in document.project.elements}

@@ -29,19 +29,35 @@ def type_into(widget, text: str) -> None:
     settle(widget.window())
 
 
+def type_into_cell(table, row: int, label: str, text: str) -> None:
+    """Type ``text`` into the per-storey table's cell as the user's edit would commit it."""
+    table.table.item(row, table.column(label)).setText(text)
+    settle(table.window())
+
+
 def test_a_valid_section_applies_in_display_units(window):
-    form = window.properties.form
-    type_into(form.editor("Brace area"), "4500")
+    table = window.properties.storeys
+    type_into_cell(table, 0, "Brace area", "4500")
     assert window.document.project.element("B1").properties.brace_area == pytest.approx(4.5e-3)
-    assert form.error_text("Brace area") == ""
+    assert table.error_text() == ""
     assert window.document.undo_stack.count() == 1
+
+
+@pytest.mark.parametrize(
+    "text, message", [("-5", "must be from 1 to 1e+10 mm²"), ("lots", "is not a number")]
+)
+def test_an_invalid_section_is_refused_in_place(window, text, message):
+    before = window.document.project
+    table = window.properties.storeys
+    type_into_cell(table, 0, "Brace area", text)
+    assert window.document.project == before
+    assert window.document.undo_stack.count() == 0
+    assert message in table.error_text()
 
 
 @pytest.mark.parametrize(
     "label, text, message",
     [
-        ("Brace area", "-5", "must be from 1 to 1e+10 mm²"),
-        ("Brace area", "lots", "is not a number"),
         ("Bays", "0", "whole number from 1 to 20"),
         ("Bays", "2.5", "not a whole number"),
         ("Id", "B2", "is used by another element"),
@@ -85,7 +101,8 @@ def test_changing_the_kind_gives_that_kinds_defaults(window):
     combo.activated.emit(combo.currentIndex())
     element = window.document.project.element("B1")
     assert isinstance(element.properties, ShearWall)
-    assert window.properties.form.editor("Thickness").text() == "250"
+    table = window.properties.storeys
+    assert table.table.item(0, table.column("Thickness")).text() == "250"
 
 
 def test_level_fields_refuse_a_zero_height(window):

@@ -260,3 +260,15 @@ def test_limit_contour_runs_where_the_map_crosses_the_limit() -> None:
     for a, b in segments:
         assert a[0] == pytest.approx(3.5) and b[0] == pytest.approx(3.5)
         assert min(a[1], b[1]) >= 1.0
+
+
+def test_a_switched_off_element_is_not_in_the_mode_drawings() -> None:
+    from core.report.mode_frames import building_geometry
+
+    project = symmetric_but_one()
+    off = switch_elements(project, ["Y4"], False)
+    floors = analyse(project).floors
+    drawn = building_geometry(project, floors).plan_elements
+    without = building_geometry(off, floors).plan_elements
+    kind = project.element("Y4").kind
+    assert len(without[kind]) == len(drawn[kind]) - 2 * 3  # its two ends on each of its three floors

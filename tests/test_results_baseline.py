@@ -22,9 +22,13 @@ from core.report.summary import results_to_dict
 from tests.builders import numbers
 
 BASELINE = Path(__file__).parent / "fixtures" / "baseline"
+FORMAT_V1 = sorted((Path(__file__).parent / "fixtures" / "format_v1").glob("*.poise"))
+"""The samples as format version 1 wrote them: older files must load with the same results."""
 
 
-@pytest.mark.parametrize("sample", sample_projects(), ids=lambda p: p.stem)
+@pytest.mark.parametrize(
+    "sample", [*sample_projects(), *FORMAT_V1], ids=lambda p: f"{p.parent.name}/{p.stem}"
+)
 def test_sample_results_equal_the_saved_baseline(sample: Path) -> None:
     project = load_project(sample)
     now = numbers(json.loads(json.dumps(results_to_dict(project, analyse(project)))))

@@ -107,6 +107,7 @@ class ElementItem(QGraphicsItem):
         self.faint = faint
         self.selected = False
         self.culprit = False
+        self.transfer = False
         self.setAcceptedMouseButtons(Qt.MouseButton.NoButton)  # tools pick by position
         # Painted once per look and zoom into a pixmap the view reuses: a drag that moves one
         # element repaints that element, and the other items are copied, not drawn again.
@@ -118,9 +119,9 @@ class ElementItem(QGraphicsItem):
             self.element = element
             self.update()
 
-    def set_marks(self, selected: bool, culprit: bool) -> None:
-        if (selected, culprit) != (self.selected, self.culprit):
-            self.selected, self.culprit = selected, culprit
+    def set_marks(self, selected: bool, culprit: bool, transfer: bool = False) -> None:
+        if (selected, culprit, transfer) != (self.selected, self.culprit, self.transfer):
+            self.selected, self.culprit, self.transfer = selected, culprit, transfer
             self.update()
 
     def pixel_changed(self) -> None:
@@ -153,6 +154,8 @@ class ElementItem(QGraphicsItem):
         painter.resetTransform()
         painter.setRenderHint(QPainter.RenderHint.Antialiasing)
         draw_element_symbol(painter, self.element, a, b, transform.m11(), self.faint, self.selected, self.culprit)
+        if self.transfer and not self.faint:
+            draw_transfer_mark(painter, a, b)
         painter.restore()
 
 
@@ -191,6 +194,26 @@ def draw_element_symbol(
     w = spec.draw_canvas(painter, a, u, n, length, SYMBOL_PIXELS, scale, element.properties, colour)
     if label:
         _draw_label(painter, element.id, (a + b) / 2, n, w + 9.0, colour)
+
+
+TRANSFER_PIXELS = 7.0
+"""Half-width of the transfer mark, px."""
+
+
+def draw_transfer_mark(painter: QPainter, a: QPointF, b: QPointF) -> None:
+    """The mark of an element whose base is fixed on a floor (a transfer, or a line left in two
+    pieces): a wedge inside each end, pointing along the line, in the warning colour."""
+    line = QLineF(a, b)
+    if line.length() < 1.0:
+        return
+    u = QPointF(line.dx() / line.length(), line.dy() / line.length())
+    n = QPointF(-u.y(), u.x())
+    s = TRANSFER_PIXELS
+    painter.setPen(style.pen(style.WARN.darker(140), 1.6))
+    painter.setBrush(style.WARN)
+    for end, inward in ((a, u), (b, -u)):
+        foot = end + inward * (1.6 * s)
+        painter.drawPolygon(QPolygonF([foot + n * s, foot - n * s, foot + inward * (1.4 * s)]))
 
 
 @lru_cache(maxsize=4096)

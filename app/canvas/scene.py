@@ -11,16 +11,15 @@ from __future__ import annotations
 from PySide6.QtCore import QRectF
 from PySide6.QtWidgets import QGraphicsItem, QGraphicsScene
 
+from app.canvas import style
 from app.canvas.items import ElementItem, FloorItem, UnderlayItem
 from app.canvas.overlays import OverlayItem, overlay_data
 from app.document import ProjectDocument
 from core.model import Element, Level
+from core.model.continuity import transfers
 
 SCENE_HALF_SIZE = 20_000.0
 """Half the scene's extent, m: far beyond any building, so zoom about the cursor always works."""
-
-SWITCHED_OFF_OPACITY = 0.3
-"""A switched-off element is drawn faded: kept in the layout, left out of the analysis."""
 
 Z_BELOW, Z_UNDERLAY, Z_FLOOR, Z_ELEMENTS, Z_TEMPORARY = 0, 1, 2, 10, 60
 
@@ -122,14 +121,15 @@ class PlanScene(QGraphicsScene):
                 self.addItem(item)
             else:
                 item.set_element(element)
-            item.setOpacity(1.0 if element.active else SWITCHED_OFF_OPACITY)
+            item.setOpacity(1.0 if element.active else style.SWITCHED_OFF_OPACITY)
 
     def _mark(self) -> None:
         selected = set(self.document.selection)
         error = self.document.error
         culprits = set(error.elements) if error is not None else set()
+        standing = {t.element for t in transfers(self.document.shown_project)}
         for element_id, item in self.element_items.items():
-            item.set_marks(element_id in selected, element_id in culprits)
+            item.set_marks(element_id in selected, element_id in culprits, element_id in standing)
 
     def _results(self) -> None:
         self.overlay.set_data(overlay_data(self.document.results, self.document.current_level))

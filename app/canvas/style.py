@@ -22,6 +22,8 @@ SNAP = QColor("#d0560b")
 SELECTION = QColor(255, 176, 0, 110)
 CULPRIT = QColor(198, 21, 47, 120)
 HANDLE = QColor("#1d1d1b")
+SWITCHED_OFF_OPACITY = 0.3
+"""A switched-off element is drawn faded (plan and sheet): kept in the layout, out of the analysis."""
 
 LABEL_FONT = QFont("DejaVu Sans", 8)
 """Element ids and the centres' letters on the canvas."""

@@ -1,7 +1,8 @@
 """The placement guide: where the selected element should go, and what losing an element costs.
 
 "Map and moves": the measure (chosen here) the building would have with the selected element's
-midpoint at each point of the plan, painted under the elements with its legend and the limit
+midpoint — or a new element's, of a kind chosen here with its default section, before placing
+it — at each point of the plan, painted under the elements with its legend and the limit
 contour; an arrow on every element of the level pointing the way a move lowers the measure, and
 the elements ranked by how much; the storey's target zone for the centre of rigidity; a suggested
 position drawn as a ghost, which Accept moves the element to as one undo step. The map follows
@@ -26,6 +27,7 @@ from PySide6.QtWidgets import (
     QFormLayout,
     QHBoxLayout,
     QLabel,
+    QLineEdit,
     QProgressBar,
     QPushButton,
     QScrollArea,
@@ -40,19 +42,24 @@ from app.drag_throttle import DragThrottle
 from app.guidance.plan_items import GuidanceLayer, GuidanceMarks
 from app.guidance.ramp import LEGEND_SIZE, draw_legend, quantity
 from app.guidance.worker import GuidanceWorker
+from app.kinds import app_kinds
 from app.panels.when_shown import WhenShown
 from app.units import DRIFT, LENGTH, PERCENT, PLAIN, SECONDS
+from core.errors import AnalysisError, ModelError
 from core.guidance.gradients import MoveGradient, move_gradients
 from core.guidance.measures import Measure
-from core.guidance.position_map import DEFAULT_STEPS, PositionMap, position_map
+from core.guidance.position_map import DEFAULT_STEPS, PositionMap, position_map, with_candidate
 from core.guidance.robustness import Comparison, Loss, compare, loss_ranking
 from core.guidance.suggestion import Constraint, Suggestion, suggest
 from core.guidance.target_zone import target_zones
 from core.lateral.cases import DIRECTIONS
 from core.model import Element, Project
+from core.model.edits import add_elements, new_element
 from core.report.summary import CAUTION
 
 THROTTLE_MS = 150
+NEW_LENGTH = 6.0
+"""Length of a new element mapped before placing it, m, until the user types another."""
 CONSTRAINT_LABELS = {
     Constraint.OUTLINE: "anywhere on its floors",
     Constraint.EDGES: "on an outline edge",
@@ -116,6 +123,8 @@ class GuidancePanel(QWidget):
         self.gradients: list[MoveGradient] = []
         self.suggestion: Suggestion | None = None
         self._suggested_for: Project | None = None
+        self._new: Element | None = None
+        """The new element a suggestion places (None: it moves the selected one)."""
         self._build()
         self._shown = WhenShown(self, self.refresh)
         self._throttle = DragThrottle(self.document, THROTTLE_MS, self._shown.request, self.isVisible, self)
@@ -146,6 +155,16 @@ class GuidancePanel(QWidget):
         page = QWidget()
         self.target = QLabel("Select one element to see where it could go.")
         self.target.setWordWrap(True)
+        self.subject = QComboBox()
+        self.subject.addItem("the selected element", None)
+        for spec in app_kinds():
+            self.subject.addItem(f"a new {spec.label.lower()}", spec.kind)
+        self.subject.currentIndexChanged.connect(self.refresh)
+        self.new_length = QLineEdit(LENGTH.show(NEW_LENGTH))
+        self.new_length.editingFinished.connect(self.refresh)
+        self.new_along = QComboBox()
+        self.new_along.addItems(["along x", "along y"])
+        self.new_along.currentIndexChanged.connect(self.refresh)
         self.measure = QComboBox()
         for m in Measure:
             self.measure.addItem(m.label, m)
@@ -183,6 +202,9 @@ class GuidancePanel(QWidget):
         self.moves_note = QLabel("")
         self.moves_note.setWordWrap(True)
         form = QFormLayout()
+        form.addRow("Map for", self.subject)
+        form.addRow(f"New element's length, {LENGTH.unit}", self.new_length)
+        form.addRow("New element runs", self.new_along)
         form.addRow("Measure", self.measure)
         form.addRow("Place", self.constraint)
         layout = QVBoxLayout(page)
@@ -218,6 +240,26 @@ class GuidancePanel(QWidget):
     def chosen_measure(self) -> Measure:
         return Measure(self.measure.currentData())  # Qt hands the enum back as its text
 
+    def candidate(self) -> tuple[Project, Element] | None:
+        """The shown layout with a new element of the chosen kind (its default section, over every
+        level, of the chosen length and direction) where it fits, if a new element is chosen."""
+        kind = self.subject.currentData()
+        project = self.document.shown_project
+        if kind is None or not project.levels:
+            return None
+        try:
+            length = LENGTH.parse(self.new_length.text())
+        except ValueError:
+            length = NEW_LENGTH
+        length = max(length, 0.1)
+        end = (length, 0.0) if self.new_along.currentIndex() == 0 else (0.0, length)
+        element = new_element(project, kind, (0.0, 0.0), end, 0, len(project.levels))
+        try:
+            placed = with_candidate(project, element)
+        except (AnalysisError, ModelError):
+            return None
+        return placed, placed.elements[-1]
+
     def selected(self) -> Element | None:
         """The one selected active element of the shown layout, if exactly one is selected."""
         ids = self.document.selection
@@ -232,12 +274,13 @@ class GuidancePanel(QWidget):
         """Bring the guidance up to the shown layout: a new map job, and on committed states the
         arrows, the comparison and the zone."""
         self._throttle.cancel()
-        project = self.document.shown_project
-        element = self.selected()
+        shown = self.document.shown_project
+        candidate = self.candidate()
+        project, element = candidate if candidate is not None else (shown, self.selected())
         measure = self.chosen_measure()
-        if self._suggested_for is not project:
+        if self._suggested_for is not shown:
             self._drop_suggestion()
-        stands = self.document.results is not None and self.document.analysed_project is project
+        stands = self.document.results is not None and self.document.analysed_project is shown
         if element is None or not element.active:
             self.worker.cancel("map")
             self.map = None
@@ -247,6 +290,8 @@ class GuidancePanel(QWidget):
             self.target.setText(f"Where {element.id} could stand: {measure.label}.")
             self.worker.submit("map", lambda s, p, q: position_map(project, element.id, measure, DEFAULT_STEPS,
                                                                     s, p, q))
+            if candidate is not None:
+                self.target.setText(f"Where a new {element.id} could stand: {measure.label}.")
         elif not stands:
             self.worker.cancel("map")
             self.target.setText("The layout does not stand: no map until it does.")
@@ -254,8 +299,8 @@ class GuidancePanel(QWidget):
             self.map = None
         if not self.document.previewing and stands:
             if self.show_arrows.isChecked():
-                self.worker.submit("moves", lambda s, p, q: move_gradients(project, measure, session=s, stop=q))
-            if element is not None:
+                self.worker.submit("moves", lambda s, p, q: move_gradients(shown, measure, session=s, stop=q))
+            if element is not None and candidate is None:
                 self.worker.submit("compare", lambda s, p, q: compare(project, element.id, s))
         if not self.show_arrows.isChecked():
             self.gradients = []
@@ -275,22 +320,27 @@ class GuidancePanel(QWidget):
             zone = zones[0] if zones else None
         self.layer.show_zone(zone)
         elements = {e.id: e for e in project.elements_in_storey(number) if e.active}
-        ghost = self.suggestion.moved(project.element(self.suggestion.element_id)) if self.suggestion else None
+        ghost = None
+        if self.suggestion is not None:
+            base = self._new if self._new is not None else project.element(self.suggestion.element_id)
+            ghost = self.suggestion.moved(base)
         self.marks.show(elements, self.gradients, self.suggestion, ghost)
 
     # ------------------------------------------------------------------ suggestion
 
     def request_suggestion(self) -> None:
-        element = self.selected()
+        candidate = self.candidate()
+        project, element = candidate if candidate is not None else (self.document.project, self.selected())
         if element is None or not element.active or self.document.results is None:
             self.suggestion_text.setText("Select one element of a layout that stands.")
             return
-        project, measure = self.document.project, self.chosen_measure()
+        measure = self.chosen_measure()
+        self._new = element if candidate is not None else None
         constraint = Constraint(self.constraint.currentData())
         spacing = self.window.plan_view.grid_spacing
         prepared = self.map if self.map is not None and self.map.element_id == element.id else None
         self.suggestion_text.setText("Looking for a better position…")
-        self._suggested_for = project
+        self._suggested_for = self.document.project
         self.worker.submit("suggest", lambda s, p, q: suggest(project, element.id, measure, constraint, spacing,
                                                                DEFAULT_STEPS, s, prepared))
 
@@ -299,15 +349,20 @@ class GuidancePanel(QWidget):
         found = self.suggestion
         if found is None:
             return
-        project = self.document.project
+        project, new = self.document.project, self._new
+        self._drop_suggestion()
+        if new is not None:
+            placed = found.moved(new)
+            self.document.apply(add_elements(project, [placed]), f"Add {placed.id} at the suggested position")
+            self.document.select([placed.id])
+            return
         moved = found.moved(project.element(found.element_id))
         elements = tuple(moved if e.id == found.element_id else e for e in project.elements)
-        self._drop_suggestion()
         self.document.apply(replace(project, elements=elements), f"Move {found.element_id} to the suggested position")
 
     def _drop_suggestion(self) -> None:
         self.worker.cancel("suggest")
-        self.suggestion, self._suggested_for = None, None
+        self.suggestion, self._suggested_for, self._new = None, None, None
         self.accept_button.setEnabled(False)
         self.suggestion_text.setText("")
 

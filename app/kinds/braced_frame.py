@@ -12,7 +12,7 @@ from PySide6.QtGui import QColor, QPainter
 from app.canvas.style import pen
 from app.kinds.drawing import bay_nodes
 from app.kinds.spec import AppKindSpec
-from app.panels.fields import Row
+from app.panels.fields import Row, StoreyColumn
 from app.sheet.painting import Paper
 from app.units import AREA, INERTIA, MODULUS
 from core.model import BracedFrame, BracePattern, ElementKind
@@ -92,12 +92,18 @@ def property_rows() -> list[Row]:
         ),
         Row("Bays", "properties.bays", "int"),
         Row("Tension only", "properties.tension_only", "check", tip="Cross pattern: the compression brace buckles."),
-        Row("Brace area", "properties.brace_area", "number", AREA),
-        Row("Column area", "properties.column_area", "number", AREA),
         Row("Beam area", "properties.beam_area", "number", AREA),
         Row("Beam I", "properties.beam_inertia", "number", INERTIA, tip="Matters for the chevron pattern."),
         Row("Modulus E", "properties.modulus", "number", MODULUS),
     ]
+
+
+STOREY_COLUMNS = (
+    StoreyColumn("Brace", "brace_shape", tip="A generic steel shape, or blank to type the area."),
+    StoreyColumn("Brace area", "brace_area", AREA, shape="brace_shape"),
+    StoreyColumn("Column", "column_shape", tip="A generic steel shape, or blank to type the area."),
+    StoreyColumn("Column area", "column_area", AREA, shape="column_shape"),
+)
 
 
 def stiffness_note(frames: Sequence[BracedFrame]) -> str:
@@ -118,4 +124,5 @@ SPEC = AppKindSpec(
     property_rows=property_rows,
     stiffness_note=stiffness_note,
     mode_line_width=4.0,
+    storey_columns=STOREY_COLUMNS,
 )

@@ -11,7 +11,7 @@ from app.canvas.style import pen
 from app.kinds.drawing import bay_nodes
 from app.kinds.materials import material_row
 from app.kinds.spec import AppKindSpec
-from app.panels.fields import Row
+from app.panels.fields import Row, StoreyColumn
 from app.sheet.painting import Paper
 from app.units import AREA, INERTIA, MODULUS, PLAIN
 from core.model import ElementKind, MomentFrame
@@ -49,13 +49,19 @@ def property_rows() -> list[Row]:
     return [
         material_row(),
         Row("Bays", "properties.bays", "int"),
-        Row("Column I", "properties.column_inertia", "number", INERTIA),
-        Row("Column area", "properties.column_area", "number", AREA),
-        Row("Beam I", "properties.beam_inertia", "number", INERTIA),
-        Row("Beam area", "properties.beam_area", "number", AREA),
         Row("Modulus E", "properties.modulus", "number", MODULUS),
         Row("Stiffness factor", "properties.stiffness_factor", "number", PLAIN),
     ]
+
+
+STOREY_COLUMNS = (
+    StoreyColumn("Column", "column_shape", tip="A generic steel shape, or blank to type the figures."),
+    StoreyColumn("Column I", "column_inertia", INERTIA, shape="column_shape"),
+    StoreyColumn("Column area", "column_area", AREA, shape="column_shape"),
+    StoreyColumn("Beam", "beam_shape", tip="The beams on top of the storey: a generic steel shape, or blank."),
+    StoreyColumn("Beam I", "beam_inertia", INERTIA, shape="beam_shape"),
+    StoreyColumn("Beam area", "beam_area", AREA, shape="beam_shape"),
+)
 
 
 def stiffness_note(frames: Sequence[MomentFrame]) -> str:
@@ -75,4 +81,5 @@ SPEC = AppKindSpec(
     property_rows=property_rows,
     stiffness_note=stiffness_note,
     mode_line_width=4.0,
+    storey_columns=STOREY_COLUMNS,
 )

@@ -10,7 +10,7 @@ from PySide6.QtGui import QBrush, QColor, QPainter, QPolygonF
 from app.canvas.style import pen
 from app.kinds.materials import material_row
 from app.kinds.spec import AppKindSpec
-from app.panels.fields import Row
+from app.panels.fields import Row, StoreyColumn
 from app.sheet.painting import Paper
 from app.units import MODULUS, PLAIN, THICKNESS
 from core.model import ElementKind, ShearWall
@@ -52,17 +52,20 @@ def draw_sheet(
 def property_rows() -> list[Row]:
     return [
         material_row("Sets the material's typical wall (concrete 250 mm cracked, or a steel plate)."),
-        Row("Thickness", "properties.thickness", "number", THICKNESS),
         Row("Modulus E", "properties.modulus", "number", MODULUS),
         Row("Poisson's ratio", "properties.poisson", "number", PLAIN),
-        Row(
-            "Stiffness factor",
-            "properties.stiffness_factor",
-            "number",
-            PLAIN,
-            tip="Effective share of the gross stiffness after cracking (EN 1998-1 §4.3.1(7): 0.5).",
-        ),
     ]
+
+
+STOREY_COLUMNS = (
+    StoreyColumn("Thickness", "thickness", THICKNESS),
+    StoreyColumn(
+        "Stiffness factor",
+        "stiffness_factor",
+        PLAIN,
+        tip="Effective share of the gross stiffness after cracking (EN 1998-1 §4.3.1(7): 0.5).",
+    ),
+)
 
 
 def stiffness_note(walls: Sequence[ShearWall]) -> str:
@@ -88,4 +91,5 @@ SPEC = AppKindSpec(
     mode_line_width=6.0,
     thickness=thickness,
     legend_properties=ShearWall(thickness=0.18),
+    storey_columns=STOREY_COLUMNS,
 )

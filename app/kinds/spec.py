@@ -16,7 +16,7 @@ from typing import Any, Protocol
 from PySide6.QtCore import QPointF
 from PySide6.QtGui import QColor, QPainter
 
-from app.panels.fields import Row
+from app.panels.fields import Row, StoreyColumn
 from app.sheet.painting import Paper
 from core.model import Kind, kind_spec, registered_kinds
 
@@ -92,6 +92,9 @@ class AppKindSpec:
     """The thickness the symbol shows to scale, m (0 for a line symbol)."""
     legend_properties: Any = None
     """Properties of the sheet legend's sample symbol; None uses the kind's defaults."""
+    storey_columns: tuple[StoreyColumn, ...] = ()
+    """The columns of the properties panel's per-storey table (the fields of the kind's
+    per-storey section, :attr:`core.model.KindSpec.storey_values`); empty: no table."""
 
 
 _SPECS: dict[Kind, AppKindSpec] = {}

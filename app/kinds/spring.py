@@ -9,7 +9,7 @@ from PySide6.QtGui import QColor, QPainter, QPolygonF
 
 from app.canvas.style import pen
 from app.kinds.spec import AppKindSpec
-from app.panels.fields import Row
+from app.panels.fields import Row, StoreyColumn
 from app.sheet.painting import Paper
 from app.units import STIFFNESS
 from core.model import ElementKind, Spring
@@ -53,15 +53,10 @@ def draw_sheet(
 
 
 def property_rows() -> list[Row]:
-    return [
-        Row(
-            "Storey stiffness",
-            "properties.storey_stiffness",
-            "numbers",
-            STIFFNESS,
-            tip="One value per storey spanned, bottom storey first, separated by commas.",
-        )
-    ]
+    return []
+
+
+STOREY_COLUMNS = (StoreyColumn("Storey stiffness", "", STIFFNESS),)
 
 
 def stiffness_note(springs: Sequence[Spring]) -> str:
@@ -81,4 +76,5 @@ SPEC = AppKindSpec(
     property_rows=property_rows,
     stiffness_note=stiffness_note,
     mode_line_width=3.0,
+    storey_columns=STOREY_COLUMNS,
 )

@@ -55,6 +55,26 @@ class Row:
         return f"{self.label}, {unit}" if unit else self.label
 
 
+@dataclass(frozen=True)
+class StoreyColumn:
+    """One column of the per-storey section table: a field of a kind's per-storey section."""
+
+    label: str
+    field: str
+    """The field of the storey section (and of the element's own "same for all" fields); "" when
+    the per-storey value is a bare number (a spring's stiffness)."""
+    quantity: Quantity | None = None
+    """How the number is shown and typed; None for a steel-shape choice."""
+    shape: str = ""
+    """For a number: the shape field a typed value clears (the shape would set it otherwise)."""
+    tip: str = ""
+
+    @property
+    def title(self) -> str:
+        unit = self.quantity.unit if self.quantity and self.quantity.unit else ""
+        return f"{self.label}, {unit}" if unit else self.label
+
+
 def short_message(error: ModelError, quantity: Quantity | None = None) -> str:
     """The model's message without the echoed internal value (the field shows what was typed),
     with an accepted range restated in the field's display units."""

@@ -14,6 +14,7 @@ from app.commands import respan, set_length_and_angle
 from app.document import ProjectDocument
 from app.kinds import app_kind, app_kinds
 from app.panels.fields import FieldForm, Row
+from app.panels.storey_sections import StoreySectionTable
 from app.units import (
     ACCELERATION,
     DEGREES,
@@ -243,9 +244,18 @@ class PropertiesPanel(QWidget):
         self.heading.setWordWrap(True)
         self.form = FieldForm()
         self.form.apply = self._apply
+        self.storeys = StoreySectionTable()
+        self.storeys.apply = self._apply
+        self.storeys.hide()
+        content = QWidget()
+        column = QVBoxLayout(content)
+        column.setContentsMargins(0, 0, 0, 0)
+        column.addWidget(self.form)
+        column.addWidget(self.storeys)
+        column.addStretch(1)
         scroll = QScrollArea()
         scroll.setWidgetResizable(True)
-        scroll.setWidget(self.form)
+        scroll.setWidget(content)
         scroll.setFrameShape(QScrollArea.Shape.NoFrame)
         layout = QVBoxLayout(self)
         layout.setContentsMargins(2, 2, 2, 2)
@@ -268,7 +278,9 @@ class PropertiesPanel(QWidget):
             self.heading.setText(f"{' / '.join(sorted(kinds))}: {names}")
             self.form.set_rows(element_rows(project, elements))
             self.form.show_objects(elements)
+            self.storeys.show_elements(project, elements)
         else:
+            self.storeys.hide()
             self.heading.setText("Project and analysis settings (select an element on the plan to edit it)")
             self.form.set_rows(project_rows(project))
             self.form.show_objects([project])

@@ -18,7 +18,7 @@ from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QBrush, QColor, QPainterPath, QPolygonF
 
 from app.canvas.centre_marks import draw_centre_mark
-from app.canvas.style import MASS_CENTRE, RIGIDITY_CENTRE
+from app.canvas.style import MASS_CENTRE, RIGIDITY_CENTRE, SWITCHED_OFF_OPACITY
 from app.kinds import app_kind, app_kinds
 from app.sheet.painting import ALIGN_CENTRE, ALIGN_LEFT, ALIGN_RIGHT, INK, MUTED, Paper
 from core.model import Element, Kind, Point, Project, default_properties
@@ -168,7 +168,9 @@ def draw_plan(paper: Paper, box: QRectF, project: Project, results: Results, lev
 
     elements = project.elements_in_storey(level)
     for element in elements:
+        painter.setOpacity(1.0 if element.active else SWITCHED_OFF_OPACITY)
         draw_element(paper, scale, element)
+    painter.setOpacity(1.0)
 
     mass = scale.at(results.floors[level - 1].centre)
     centre = results.lateral.storey(level).rigidity_centre

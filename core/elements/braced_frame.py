@@ -1,7 +1,8 @@
 """Braced frame: a pin-jointed planar truss of columns and braces over equal bays, rigid floors.
 
 Columns are axial members (EA = column_area·E), continuous over the height, pinned at the base.
-Braces are truss members (brace_area·E). Beam–column joints are pinned, and the floor is rigid in
+Braces are truss members (brace_area·E). Brace and column areas may change storey by storey
+(``BracedFrame.storeys``). Beam–column joints are pinned, and the floor is rigid in
 its plane, so the beams of single-diagonal and cross frames would only carry axial force the floor
 already takes: they add no stiffness and are left out (hence ``beam_area`` never matters).
 Chevron frames keep the beam's flexure: a beam, continuous over the mid-span node where the two
@@ -29,6 +30,7 @@ from core.arrays import FloatArray, frozen_array
 from core.elements.forces import ElementForces
 from core.elements.planar_frame import FrameModel, IntArray, PlanarFrame
 from core.model import BracedFrame, BracePattern
+from core.model.properties import BraceStorey, storey_sections
 
 
 @dataclass(frozen=True)
@@ -58,15 +60,16 @@ def condense(frame: BracedFrame, length: float, storey_heights: tuple[float, ...
     E = frame.modulus
     model = PlanarFrame(storey_heights)
     grid = model.add_grid(length, bays)
+    sections = storey_sections(frame, BraceStorey, n)
 
     columns = [
-        [model.add_truss(grid[i][k], grid[i + 1][k], frame.column_area * E) for k in range(bays + 1)]
+        [model.add_truss(grid[i][k], grid[i + 1][k], sections[i].column_area * E) for k in range(bays + 1)]
         for i in range(n)
     ]
 
-    brace_EA = frame.brace_area * E
     braces: list[list[int]] = []
     for i in range(n):
+        brace_EA = sections[i].brace_area * E
         lower, upper = grid[i], grid[i + 1]
         row: list[int] = []
         for k in range(bays):

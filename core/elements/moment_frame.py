@@ -1,6 +1,7 @@
 """Moment frame: Euler–Bernoulli columns and beams with rigid joints over equal bays, fixed bases.
 
-``bays + 1`` column lines; every floor is rigid in its plane (its nodes share the lateral DOF, so
+``bays + 1`` column lines; columns and the beams on top of them may change storey by storey
+(``MomentFrame.storeys``); every floor is rigid in its plane (its nodes share the lateral DOF, so
 beams do not shorten). The effective-stiffness factor scales EI of columns and beams
 (EN 1998-1 §4.3.1(7) for cracked concrete); axial stiffness stays gross, and column shortening is
 kept, so tall slender frames show their overturning flexibility.
@@ -16,6 +17,7 @@ from core.arrays import FloatArray, frozen_array
 from core.elements.forces import ElementForces
 from core.elements.planar_frame import FrameModel, IntArray, PlanarFrame
 from core.model import MomentFrame
+from core.model.properties import FrameStorey, storey_sections
 
 
 @dataclass(frozen=True)
@@ -46,18 +48,23 @@ class MomentFrameModel(FrameModel):
 def condense(frame: MomentFrame, length: float, storey_heights: tuple[float, ...]) -> MomentFrameModel:
     """Build the planar moment frame over ``length`` and ``storey_heights`` and condense it."""
     n, bays = len(storey_heights), frame.bays
-    E = frame.modulus
-    column_EA, column_EI = E * frame.column_area, frame.stiffness_factor * E * frame.column_inertia
-    beam_EA, beam_EI = E * frame.beam_area, frame.stiffness_factor * E * frame.beam_inertia
+    E, factor = frame.modulus, frame.stiffness_factor
+    sections = storey_sections(frame, FrameStorey, n)
     model = PlanarFrame(storey_heights)
     grid = model.add_grid(length, bays, fixed_base=True)
     columns = [
-        [model.add_beam(grid[i][k], grid[i + 1][k], column_EA, column_EI) for k in range(bays + 1)]
-        for i in range(n)
+        [
+            model.add_beam(grid[i][k], grid[i + 1][k], E * s.column_area, factor * E * s.column_inertia)
+            for k in range(bays + 1)
+        ]
+        for i, s in enumerate(sections)
     ]
     beams = [
-        [model.add_beam(grid[i + 1][k], grid[i + 1][k + 1], beam_EA, beam_EI) for k in range(bays)]
-        for i in range(n)
+        [
+            model.add_beam(grid[i + 1][k], grid[i + 1][k + 1], E * s.beam_area, factor * E * s.beam_inertia)
+            for k in range(bays)
+        ]
+        for i, s in enumerate(sections)
     ]
     return MomentFrameModel(
         frame=model.condense("moment frame"),

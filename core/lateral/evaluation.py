@@ -29,10 +29,13 @@ from core.lateral.loads import (
 from core.lateral.p_delta import StabilityLimits, amplification, gravity_loads, stability_coefficients
 from core.lateral.records import (
     CaseResult,
+    Check,
     ElementDemand,
     LateralResults,
     StaticLoad,
+    Status,
     StoreyLateral,
+    Verdict,
 )
 from core.lateral.response import (
     case_results,
@@ -47,6 +50,7 @@ from core.lateral.response import (
 )
 from core.lateral.rules import rules_for
 from core.model import BracedFrame, Element, Project
+from core.model.continuity import overlap, transfers
 from core.solve.assembly import FloorMass, element_matrix
 from core.solve.modal import Mode
 
@@ -145,9 +149,31 @@ def lateral_checks(
         elements=elements,
         mode_order=order,
         verdicts=rules.judge(settings, storeys, order)
-        + rules.method_limits(settings, loads, storeys, float(elevations[-1])),
+        + rules.method_limits(settings, loads, storeys, float(elevations[-1]))
+        + continuity_verdicts(project, rules.continuity_clause),
         notes=rules.notes(settings),
     )
+
+
+def continuity_verdicts(project: Project, clause: str) -> tuple[Verdict, ...]:
+    """A warning for each element whose base is fixed on a floor (:func:`core.model.continuity.transfers`):
+    the share of its length that lateral elements beneath carry on down, against all of it."""
+    out = []
+    for transfer in transfers(project):
+        element = project.element(transfer.element)
+        below = [project.element(i) for i in transfer.beneath]
+        carried = sum(overlap(element, e) for e in below) / element.length if element.length > 0 else 0.0
+        out.append(
+            Verdict(
+                name=Check.CONTINUITY,
+                value=min(1.0, carried) if transfer.stacked_on is None else 1.0,
+                limit=1.0,
+                status=Status.WARN,
+                clause=clause,
+                note=transfer.message + ".",
+            )
+        )
+    return tuple(out)
 
 
 def _modal_period(modes: Sequence[Mode], axis: int) -> float:

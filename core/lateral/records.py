@@ -44,6 +44,7 @@ class Check(StrEnum):
     TORSION_PERIOD_RATIO = "rotational over translational period"
     STATIC_METHOD = "lateral force method applies"
     STABILITY = "P-Δ stability coefficient θ"
+    CONTINUITY = "share of an element's length carried on down"
 
     @property
     def group(self) -> CheckGroup:
@@ -62,6 +63,7 @@ _GROUPS = {
     Check.TORSION_PERIOD_RATIO: CheckGroup.MODES,
     Check.STATIC_METHOD: CheckGroup.METHOD,
     Check.STABILITY: CheckGroup.STABILITY,
+    Check.CONTINUITY: CheckGroup.REGULARITY,
 }
 
 

@@ -50,6 +50,7 @@ BOUNDS: dict[str, Bound] = {
     "section_area": Bound(1.0e-6, 1.0e4, "m²"),
     "second_moment": Bound(1.0e-15, 1.0e7, "m⁴"),
     "thickness": Bound(1.0e-3, 10.0, "m"),
+    "shape_dimension": Bound(5.0e-4, 5.0, "m"),
     "spring_stiffness": Bound(1.0e-6, 1.0e13, "kN/m"),
     "poisson": Bound(0.0, 0.49, ""),
     "stiffness_factor": Bound(1.0e-3, 1.0, ""),

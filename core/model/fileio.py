@@ -40,9 +40,14 @@ from core.model.bounds import FILE_SIZE, NESTING
 from core.model.settings import RETIRED_FIELDS
 
 FORMAT_TAG = "poise-project"
-FORMAT_VERSION = 2
-"""1: the first format. 2: an element may be switched off (``"active": false``); a version 1 file
-has no such field, so every element of it is active (the field's default) and it loads unchanged."""
+FORMAT_VERSION = 3
+"""The format's history, each version reading all older ones:
+1 — the first format;
+2 — an element may be switched off (``"active": false``); a version 1 file has no such field, so
+    every element of it is active (the field's default) and it loads unchanged;
+3 — sections per storey and generic steel shapes (``storeys``, ``*_shape`` fields of braced frames,
+    walls and moment frames). Older files hold none and need no change: the new fields take
+    their defaults (the same section in every storey, areas typed)."""
 UNITS = {"length": "m", "force": "kN", "mass": "t", "time": "s", "area load": "kPa", "modulus": "kPa"}
 BACKUP_SUFFIX = ".bak"
 

@@ -14,6 +14,7 @@ builder, to :func:`core.elements.kinds.register_element_kind`.
 from __future__ import annotations
 
 import dataclasses
+import typing
 from collections.abc import Callable, Iterator
 from dataclasses import dataclass
 from enum import StrEnum
@@ -60,7 +61,9 @@ class KindSpec:
     """Sensible concept-stage properties in a material (the kind's usual one for None)."""
     storey_values: str | None = None
     """The name of the properties' field that holds one value per storey spanned (a spring's
-    ``storey_stiffness``), or None when the properties do not depend on the span."""
+    ``storey_stiffness``, the walls' and frames' ``storeys`` sections), or None when the
+    properties do not depend on the span. An empty tuple there means "the same in every storey"
+    (a kind that needs its values, like the spring, refuses it itself)."""
     elevation: Elevation = Elevation.FRAME
     """How the kind is drawn in elevation."""
 
@@ -120,7 +123,8 @@ def default_properties(kind: Kind, material: Material | None = None, storeys: in
 
 
 def storey_values(properties: object) -> tuple[Any, ...] | None:
-    """The per-storey values of ``properties``, or None for a kind that has none."""
+    """The per-storey values of ``properties`` (empty: the same for all storeys), or None for a
+    kind that has none."""
     name = kind_spec(kind_of(properties)).storey_values
     return None if name is None else tuple(getattr(properties, name))
 
@@ -130,6 +134,8 @@ def _with_storey_values(properties: Any, edit: Callable[[list[Any]], None]) -> A
     if name is None:
         return properties
     values = list(getattr(properties, name))
+    if not values:
+        return properties  # the same section in every storey, whatever the span
     edit(values)
     return dataclasses.replace(properties, **{name: tuple(values)})
 
@@ -161,12 +167,47 @@ def storey_removed(properties: Any, index: int) -> Any:
     return _with_storey_values(properties, lambda values: values.pop(index))
 
 
+def storey_value_type(kind: Kind) -> type | None:
+    """The type of one per-storey value of ``kind`` (a section dataclass, or ``float`` for a
+    spring's stiffness), or None for a kind without per-storey values."""
+    spec = kind_spec(kind)
+    if spec.storey_values is None:
+        return None
+    hint = typing.get_type_hints(spec.properties)[spec.storey_values]
+    value_type: type = typing.get_args(hint)[0]
+    return value_type
+
+
+def split_by_storey(properties: Any, storeys: int) -> Any:
+    """``properties`` with a section of its own in each of ``storeys`` storeys, each a copy of the
+    one it has now ("same for all" turned off); unchanged if it has per-storey values already."""
+    spec = kind_spec(kind_of(properties))
+    value_type = storey_value_type(spec.kind)
+    if spec.storey_values is None or getattr(properties, spec.storey_values) or value_type is None:
+        return properties
+    if not dataclasses.is_dataclass(value_type):
+        raise ValueError(f"kind {spec.kind!r} has no section to repeat")
+    section = value_type(**{f.name: getattr(properties, f.name) for f in dataclasses.fields(value_type)})
+    return dataclasses.replace(properties, **{spec.storey_values: (section,) * storeys})
+
+
+def same_for_all(properties: Any) -> Any:
+    """``properties`` with one section for all storeys: its lowest storey's ("same for all")."""
+    spec = kind_spec(kind_of(properties))
+    value_type = storey_value_type(spec.kind)
+    if spec.storey_values is None or value_type is None or not dataclasses.is_dataclass(value_type):
+        return properties
+    return dataclasses.replace(properties, **{spec.storey_values: ()})
+
+
 
 def _register_builtin_kinds() -> None:
     """The four kinds Poise ships with (their element models live in core/elements)."""
-    register_kind(KindSpec(ElementKind.BRACED_FRAME, BracedFrame, "B", lambda material: BracedFrame()))
-    register_kind(KindSpec(ElementKind.SHEAR_WALL, ShearWall, "W", steel_or_concrete_wall, elevation=Elevation.WALL))
-    register_kind(KindSpec(ElementKind.MOMENT_FRAME, MomentFrame, "M", steel_or_concrete_frame))
+    register_kind(KindSpec(ElementKind.BRACED_FRAME, BracedFrame, "B", lambda material: BracedFrame(), "storeys"))
+    register_kind(
+        KindSpec(ElementKind.SHEAR_WALL, ShearWall, "W", steel_or_concrete_wall, "storeys", Elevation.WALL)
+    )
+    register_kind(KindSpec(ElementKind.MOMENT_FRAME, MomentFrame, "M", steel_or_concrete_frame, "storeys"))
     register_kind(
         KindSpec(ElementKind.SPRING, Spring, "S", lambda material: Spring(), "storey_stiffness", Elevation.POST)
     )

@@ -55,7 +55,7 @@ class Element:
         require(isinstance(self.bottom, int) and self.bottom >= 0, "bottom", "must be a level index ≥ 0")
         require(isinstance(self.top, int) and self.top > self.bottom, "top", "must be above the bottom level")
         per_storey = storey_values(self.properties)
-        if per_storey is not None:
+        if per_storey:
             require(
                 len(per_storey) == self.storey_count,
                 f"properties.{kind_spec(self.kind).storey_values}",

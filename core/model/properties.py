@@ -5,10 +5,14 @@ Units are kN, m, t, s (modulus in kPa).
 
 from __future__ import annotations
 
+import dataclasses
 from dataclasses import dataclass
 from enum import StrEnum
+from typing import Any, TypeVar
 
+from core.errors import ModelError
 from core.model.bounds import count, within
+from core.model.sections import steel_shape
 from core.model.validation import require
 
 GRAVITY = 9.80665
@@ -41,6 +45,112 @@ class BracePattern(StrEnum):
     """Two braces from the lower corners to the beam's mid-span (an inverted V)."""
 
 
+# ---------------------------------------------------------------- sections per storey
+
+
+def _shape_sets(obj: object, shape: str, area: str, inertia: str | None = None) -> None:
+    """When ``obj``'s field ``shape`` names a steel shape, that shape sets its ``area`` (and
+    ``inertia``): the designation is the input, the figures follow from its dimensions."""
+    designation = getattr(obj, shape)
+    require(isinstance(designation, str), shape, "must be a section name or empty")
+    if designation.strip():
+        section = steel_shape(designation, shape)
+        object.__setattr__(obj, shape, section.designation)
+        object.__setattr__(obj, area, section.area)
+        if inertia is not None:
+            object.__setattr__(obj, inertia, section.inertia)
+    else:
+        object.__setattr__(obj, shape, "")
+
+
+@dataclass(frozen=True)
+class BraceStorey:
+    """The sections of a braced frame in one storey."""
+
+    brace_area: float = 3.0e-3
+    column_area: float = 1.2e-2
+    brace_shape: str = ""
+    """A generic steel shape (``CHS 168.3×8``) that sets ``brace_area``; empty when typed."""
+    column_shape: str = ""
+    """A generic steel shape that sets ``column_area``; empty when typed."""
+
+    def __post_init__(self) -> None:
+        _shape_sets(self, "brace_shape", "brace_area")
+        _shape_sets(self, "column_shape", "column_area")
+        within(self.brace_area, "section_area", "brace_area")
+        within(self.column_area, "section_area", "column_area")
+
+
+@dataclass(frozen=True)
+class WallStorey:
+    """The section of a shear wall in one storey."""
+
+    thickness: float = 0.25
+    stiffness_factor: float = CRACKED_FACTOR
+
+    def __post_init__(self) -> None:
+        within(self.thickness, "thickness", "thickness")
+        within(self.stiffness_factor, "stiffness_factor", "stiffness_factor")
+
+
+@dataclass(frozen=True)
+class FrameStorey:
+    """The member sizes of a moment frame in one storey: its columns and the beams on top of it."""
+
+    column_inertia: float = 2.5e-4
+    column_area: float = 1.5e-2
+    beam_inertia: float = 3.4e-4
+    beam_area: float = 1.0e-2
+    column_shape: str = ""
+    """A generic steel shape (``I 300×300×19×11``) that sets the column's area and inertia."""
+    beam_shape: str = ""
+    """A generic steel shape that sets the beam's area and inertia."""
+
+    def __post_init__(self) -> None:
+        _shape_sets(self, "column_shape", "column_area", "column_inertia")
+        _shape_sets(self, "beam_shape", "beam_area", "beam_inertia")
+        for name in ("column_area", "beam_area"):
+            within(getattr(self, name), "section_area", name)
+        for name in ("column_inertia", "beam_inertia"):
+            within(getattr(self, name), "second_moment", name)
+
+
+StoreySection = BraceStorey | WallStorey | FrameStorey
+_S = TypeVar("_S", BraceStorey, WallStorey, FrameStorey)
+
+
+def uniform_section(properties: Any, storey_type: type[_S]) -> _S:
+    """The one section of ``properties`` that holds for all its storeys ("same for all")."""
+    return storey_type(**{f.name: getattr(properties, f.name) for f in dataclasses.fields(storey_type)})
+
+
+def _settle_storeys(properties: Any, storey_type: type) -> None:
+    """Check the per-storey sections of ``properties``; when there are some, the element's own
+    section fields hold its lowest storey's values (kept in step, so they never mislead)."""
+    storeys = properties.storeys
+    require(isinstance(storeys, tuple | list), "storeys", "must be a list of per-storey sections")
+    object.__setattr__(properties, "storeys", tuple(storeys))
+    count(properties.storeys, "levels", "storeys")
+    for i, section in enumerate(properties.storeys):
+        if not isinstance(section, storey_type):
+            raise ModelError(f"storeys[{i}]", f"must be a {storey_type.__name__}")
+    if properties.storeys:
+        lowest = properties.storeys[0]
+        for f in dataclasses.fields(storey_type):
+            object.__setattr__(properties, f.name, getattr(lowest, f.name))
+
+
+def storey_sections(properties: Any, storey_type: type[_S], storeys: int) -> tuple[_S, ...]:
+    """The section of each of ``storeys`` storeys, bottom up: the per-storey ones, or the uniform
+    one repeated. ModelError when per-storey sections are given for another number of storeys."""
+    given: tuple[_S, ...] = properties.storeys
+    if not given:
+        return (uniform_section(properties, storey_type),) * storeys
+    if len(given) != storeys:
+        raise ModelError("storeys", f"needs {storeys} sections (one per storey spanned), got {len(given)}")
+    return given
+
+
 @dataclass(frozen=True)
 class BracedFrame:
     """A concentrically braced steel frame: axial columns, truss braces, rigid floors."""
@@ -55,6 +165,12 @@ class BracedFrame:
     beam_area: float = 8.0e-3
     beam_inertia: float = 3.0e-4
     """Beam second moment of area, m⁴; it matters for the chevron pattern."""
+    brace_shape: str = ""
+    """A generic steel shape that sets ``brace_area``; empty when the area is typed."""
+    column_shape: str = ""
+    """A generic steel shape that sets ``column_area``; empty when the area is typed."""
+    storeys: tuple[BraceStorey, ...] = ()
+    """Brace and column sections storey by storey, bottom up; empty: the same in all storeys."""
 
     def __post_init__(self) -> None:
         require(isinstance(self.bays, int) and 1 <= self.bays <= 20, "bays", "must be a whole number from 1 to 20")
@@ -63,6 +179,9 @@ class BracedFrame:
             "tension_only",
             "applies to the cross pattern only",
         )
+        _settle_storeys(self, BraceStorey)
+        _shape_sets(self, "brace_shape", "brace_area")
+        _shape_sets(self, "column_shape", "column_area")
         within(self.modulus, "modulus", "modulus")
         for name in ("brace_area", "column_area", "beam_area"):
             within(getattr(self, name), "section_area", name)
@@ -78,8 +197,11 @@ class ShearWall:
     poisson: float = 0.2
     stiffness_factor: float = CRACKED_FACTOR
     """Share of the gross flexural and shear stiffness that is effective after cracking."""
+    storeys: tuple[WallStorey, ...] = ()
+    """Thickness and cracking factor storey by storey, bottom up; empty: the same in all storeys."""
 
     def __post_init__(self) -> None:
+        _settle_storeys(self, WallStorey)
         within(self.thickness, "thickness", "thickness")
         within(self.modulus, "modulus", "modulus")
         within(self.poisson, "poisson", "poisson")
@@ -98,9 +220,18 @@ class MomentFrame:
     beam_area: float = 1.0e-2
     stiffness_factor: float = 1.0
     """Share of the gross flexural stiffness that is effective (0.5 for cracked concrete)."""
+    column_shape: str = ""
+    """A generic steel shape that sets the columns' area and inertia; empty when they are typed."""
+    beam_shape: str = ""
+    """A generic steel shape that sets the beams' area and inertia; empty when they are typed."""
+    storeys: tuple[FrameStorey, ...] = ()
+    """Column and beam sizes storey by storey, bottom up; empty: the same in all storeys."""
 
     def __post_init__(self) -> None:
         require(isinstance(self.bays, int) and 1 <= self.bays <= 20, "bays", "must be a whole number from 1 to 20")
+        _settle_storeys(self, FrameStorey)
+        _shape_sets(self, "column_shape", "column_area", "column_inertia")
+        _shape_sets(self, "beam_shape", "beam_area", "beam_inertia")
         within(self.modulus, "modulus", "modulus")
         for name in ("column_area", "beam_area"):
             within(getattr(self, name), "section_area", name)

@@ -322,7 +322,9 @@ def building_geometry(
     walls: list[AttachedPoints] = []
     for kind in registered_kinds():
         look = kind_spec(kind).elevation
-        parts = [_element_parts(e, elevations, look) for e in project.elements if e.kind is kind]
+        parts = [  # switched-off elements do not move
+            _element_parts(e, elevations, look) for e in project.elements if e.kind is kind and e.active
+        ]
         plan_elements[kind] = AttachedPoints.join([plan for plan, _ in parts])
         if look is Elevation.WALL:
             walls.extend(side for _, side in parts)

@@ -16,6 +16,9 @@ modelling, which the check is about:
 - nodes whose in-plane rotation nothing resists (truss joints, and the column joints of chevron
   beams, whose ends are released there with ``-releasey``) have their rotations fixed; the nodes
   of walls, moment frames and chevron apexes keep theirs;
+- sections may change storey by storey: ``properties.storeys`` (same field names as the element's
+  own, which hold when that list is empty) gives each storey's section, bottom up; a moment
+  frame's storey holds its columns and the beams on top of them;
 - an element's base is fixed (at the ground) or, if it starts on a floor, moves with that floor's
   diaphragm and is fixed against vertical movement and rotation — the planar models' fixed base.
 """
@@ -175,14 +178,21 @@ class _Builder:
     def floors_of(self, element: Element) -> range:
         return range(element.bottom, element.top + 1)
 
+    @staticmethod
+    def sections(element: Element) -> list:
+        """The section of each storey the element spans, bottom up."""
+        props = element.properties
+        return list(props.storeys) or [props] * element.storey_count
+
     def braced_frame(self, element: Element, frame: BracedFrame) -> None:
         """Axial columns on every column line, truss braces per bay and storey, and for chevrons
         a beam per bay hinged at the columns and continuous through the braces' apex."""
         bays, width, E = frame.bays, element.length / frame.bays, frame.modulus
         grid = [[self.node(element, k * width, f, True) for k in range(bays + 1)] for f in self.floors_of(element)]
-        for lower, upper in pairwise(grid):
+        sections = self.sections(element)
+        for (lower, upper), section in zip(pairwise(grid), sections, strict=True):
             for i, j in zip(lower, upper, strict=True):
-                self.truss(i, j, frame.column_area * E)
+                self.truss(i, j, section.column_area * E)
         beam_transf = self.transformation(element, vertical=False)
         for storey, (lower, upper) in enumerate(pairwise(grid)):
             for k in range(bays):
@@ -198,7 +208,7 @@ class _Builder:
                     self.frame_member(apex, upper[k + 1], beam_transf, E, A, I, "-releasey", 2)
                     braces = [(lower[k], apex), (lower[k + 1], apex)]
                 for i, j in braces:
-                    self.truss(i, j, frame.brace_area * E)
+                    self.truss(i, j, sections[storey].brace_area * E)
 
     def moment_frame(self, element: Element, frame: MomentFrame) -> None:
         """Columns on every column line and a beam per bay at every floor, rigid joints."""
@@ -206,24 +216,25 @@ class _Builder:
         grid = [[self.node(element, k * width, f, False) for k in range(bays + 1)] for f in self.floors_of(element)]
         column_transf = self.transformation(element, vertical=True)
         beam_transf = self.transformation(element, vertical=False)
-        Ic, Ib = frame.stiffness_factor * frame.column_inertia, frame.stiffness_factor * frame.beam_inertia
-        for lower, upper in pairwise(grid):
+        for (lower, upper), s in zip(pairwise(grid), self.sections(element), strict=True):
+            Ic, Ib = frame.stiffness_factor * s.column_inertia, frame.stiffness_factor * s.beam_inertia
             for i, j in zip(lower, upper, strict=True):
-                self.frame_member(i, j, column_transf, E, frame.column_area, Ic)
+                self.frame_member(i, j, column_transf, E, s.column_area, Ic)
             for i, j in pairwise(upper):
-                self.frame_member(i, j, beam_transf, E, frame.beam_area, Ib)
+                self.frame_member(i, j, beam_transf, E, s.beam_area, Ib)
 
     def shear_wall(self, element: Element, wall: ShearWall) -> None:
         """A stack of Timoshenko members on the wall's centre line, one per storey."""
-        L, t, E = element.length, wall.thickness, wall.modulus
+        L, E = element.length, wall.modulus
         G = E / (2.0 * (1.0 + wall.poisson))
-        I = wall.stiffness_factor * t * L**3 / 12.0
-        shear_area = wall.stiffness_factor * SHEAR_COEFFICIENT * t * L
         transf = self.transformation(element, vertical=True)
         nodes = [self.node(element, L / 2.0, f, False) for f in self.floors_of(element)]
-        # E G A J I_y I_z A_vy A_vz: in-plane bending about local y, in-plane shear along local z.
-        section = (E, G, t * L, OUT_OF_PLANE * I, I, OUT_OF_PLANE * I, OUT_OF_PLANE * shear_area, shear_area)
-        for i, j in pairwise(nodes):
+        for (i, j), s in zip(pairwise(nodes), self.sections(element), strict=True):
+            t = s.thickness
+            I = s.stiffness_factor * t * L**3 / 12.0
+            shear_area = s.stiffness_factor * SHEAR_COEFFICIENT * t * L
+            # E G A J I_y I_z A_vy A_vz: in-plane bending about local y, in-plane shear along local z.
+            section = (E, G, t * L, OUT_OF_PLANE * I, I, OUT_OF_PLANE * I, OUT_OF_PLANE * shear_area, shear_area)
             self.ops.element("ElasticTimoshenkoBeam", next(self.tags), i, j, *section, transf)
 
     def diaphragms(self) -> None:

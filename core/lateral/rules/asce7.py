@@ -190,4 +190,8 @@ RULES = Asce7Rules(
     title="ASCE 7-16",
     native_loads=LoadMethod.ASCE7,
     drift_limits=DRIFT_LIMITS,
+    continuity_clause=(
+        "ASCE 7-16 Table 12.3-1 Type 4 and Table 12.3-2 Type 4: offsets and in-plane discontinuities"
+        " of vertical elements"
+    ),
 )

@@ -56,6 +56,9 @@ class CodeRules:
     """The code's drift limits; the first is the default."""
     parameters: Any
     """The set's limits and nationally determined parameters (a frozen dataclass)."""
+    continuity_clause: str = "no code number: lateral elements should run down to the foundation"
+    """Where the code asks lateral elements to run without interruption to the foundation (the
+    clause of the transfer warnings)."""
 
     def judge(self, settings: Settings, storeys: Sequence[StoreyLateral], order: ModeOrder) -> tuple[Verdict, ...]:
         """Every verdict of this set for the figures of one analysis."""

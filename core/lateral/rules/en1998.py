@@ -172,4 +172,5 @@ RULES = En1998Rules(
     title="EN 1998-1",
     native_loads=LoadMethod.EN1998,
     drift_limits=DRIFT_LIMITS,
+    continuity_clause="EN 1998-1 §4.2.3.3(2): lateral systems run without interruption from the foundation to the top",
 )
